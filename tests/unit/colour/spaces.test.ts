@@ -124,6 +124,17 @@ describe("against culori lab65 (reference library, D65)", () => {
     colours.slice(0, 500).forEach((c, i) => expect(out[3 * i]).toBeCloseTo(srgbToLab(c).L, 9));
   });
 
+  it("bulkLinearToLab handles linear values beyond the fast cube-root table (> 1.1) and below ε", () => {
+    const lin = new Float64Array([1.5, 2, 1.2, 0.001, 0.002, 0.0005, 1, 1, 1]);
+    const out = bulkLinearToLab(lin, new Float64Array(9));
+    for (let i = 0; i < 3; i++) {
+      const ref = xyzToLab(linearSrgbToXyz([lin[3 * i], lin[3 * i + 1], lin[3 * i + 2]]));
+      expect(out[3 * i]).toBeCloseTo(ref.L, 9);
+      expect(out[3 * i + 1]).toBeCloseTo(ref.a, 9);
+      expect(out[3 * i + 2]).toBeCloseTo(ref.b, 9);
+    }
+  });
+
   it("rejects bad shapes with a plain message", () => {
     expect(() => bulkSrgbToLab(new Uint8Array(5), 3)).toThrow(/whole number/);
     expect(() => bulkSrgbToLab(new Uint8Array(6), 3, new Float32Array(3))).toThrow(/needed/);
