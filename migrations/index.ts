@@ -1,0 +1,7 @@
+// Every migration, listed by hand in the order they run (no file access in the production build).
+import type { MigrationObject } from "@mikro-orm/core";
+import { Migration20261202005358_studios } from "./Migration20261202005358_studios";
+
+export const migrationsList: MigrationObject[] = [
+  { name: "Migration20261202005358_studios", class: Migration20261202005358_studios },
+];
