@@ -8,6 +8,12 @@ PG_PORT="${PG_PORT:-54329}"
 S3_PORT="${S3_PORT:-4569}"
 SMTP_PORT="${SMTP_PORT:-2525}"
 MAIL_HTTP_PORT="${MAIL_HTTP_PORT:-2580}"
+export PG_PORT S3_PORT SMTP_PORT MAIL_HTTP_PORT
+# The app, the seed and the tests find the services through these (lib/env.ts); derived
+# from the ports so a checkout run on other ports stays consistent.
+export S3_ENDPOINT="${S3_ENDPOINT:-http://127.0.0.1:$S3_PORT}"
+export SMTP_URL="${SMTP_URL:-smtp://127.0.0.1:$SMTP_PORT}"
+export MAIL_FAKE_URL="${MAIL_FAKE_URL:-http://127.0.0.1:$MAIL_HTTP_PORT}"
 export AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED=true
 
 say() { printf '%s\n' "$*"; }
