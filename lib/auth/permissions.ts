@@ -1,4 +1,4 @@
-import { type Role } from "@/entities/studio";
+import type { Role } from "@/entities/studio";
 
 // The one permission table: which studio roles may do what. Route handlers name a key from here.
 export const permissions = {

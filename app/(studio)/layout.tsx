@@ -1,0 +1,3 @@
+export default function StudioGroupLayout({ children }: { children: React.ReactNode }) {
+  return <>{children}</>;
+}

@@ -1,0 +1,25 @@
+import type { Metadata, Viewport } from "next";
+import { Providers } from "@/components/providers";
+import { plexMono, plexSans, sourceSerif } from "./fonts";
+import "./globals.css";
+
+export const metadata: Metadata = {
+  title: { default: "Undertone", template: "%s · Undertone" },
+  description: "A colour-lab notebook for small hand-dye studios.",
+};
+
+export const viewport: Viewport = {
+  width: "device-width",
+  initialScale: 1,
+  themeColor: "#f6f2ea",
+};
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en" className={`${plexSans.variable} ${sourceSerif.variable} ${plexMono.variable}`}>
+      <body>
+        <Providers>{children}</Providers>
+      </body>
+    </html>
+  );
+}

@@ -1,0 +1,10 @@
+import { QueryClient } from "@tanstack/react-query";
+
+/** The one query-client factory. */
+export function makeQueryClient(): QueryClient {
+  return new QueryClient({
+    defaultOptions: {
+      queries: { staleTime: 30_000, retry: 1, refetchOnWindowFocus: true },
+    },
+  });
+}

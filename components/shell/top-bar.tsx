@@ -1,0 +1,35 @@
+import Link from "next/link";
+import { Wordmark } from "./wordmark";
+
+export function TopBar({ studioName, userName }: { studioName?: string; userName: string }) {
+  return (
+    <header className="no-print border-b border-rule bg-paper">
+      <div className="mx-auto flex max-w-6xl items-center justify-between gap-3 px-4 py-2">
+        <div className="flex min-w-0 items-center gap-3">
+          <Wordmark className="shrink-0 [&>span]:hidden sm:[&>span]:inline" />
+          {studioName && (
+            <Link
+              href="/studios"
+              className="flex min-h-11 min-w-0 items-center gap-1 rounded-md px-2 text-base font-medium hover:bg-sheet"
+              title="Switch studio"
+            >
+              <span className="truncate">{studioName}</span>
+              <span aria-hidden="true" className="text-ink-faint">
+                ⇅
+              </span>
+            </Link>
+          )}
+        </div>
+        <Link
+          href="/account"
+          className="flex min-h-11 items-center rounded-md px-2 text-sm text-ink-soft hover:bg-sheet"
+          aria-label={`Account of ${userName}`}
+        >
+          <span className="flex h-8 w-8 items-center justify-center rounded-full border border-rule-strong bg-sheet font-medium text-ink">
+            {userName.slice(0, 1).toUpperCase()}
+          </span>
+        </Link>
+      </div>
+    </header>
+  );
+}
