@@ -1,0 +1,189 @@
+// Predicting a layer: K/S additivity per band over the base (Nobbs 1985; Berns 2000), partial
+// coverage as an area mix of covered and uncovered fibre, and a gradient of depths along the skein.
+// A prediction's `state` is the base of the next layer, so layers chain.
+import type { Lab, PaletteEntry, Reflectance } from "../types";
+import { BANDS } from "./cie-data";
+import { cachedKs, cachedLabToReflectance } from "./cache";
+import { dyedReflectance, type SurfaceModel } from "./kubelka-munk";
+import type { DyeProfile } from "./profile";
+import { reflectanceToLab } from "./reflectance";
+
+/** One area of the yarn: its curve, its share of the whole, and its gradient section if any. */
+export interface SpectralPatch {
+  /** Read-only: curves are shared between patches and caches. */
+  reflectance: Reflectance;
+  share: number;
+  /** Section index (0-based) and section count of the last gradient that touched this area. */
+  section?: number;
+  sections?: number;
+}
+
+/** The spectral state of a yarn after some layers: the areas that make it up. */
+export interface SpectralState {
+  patches: SpectralPatch[];
+}
+
+/** A base is a measured colour, one reflectance curve, or the state left by an earlier prediction. */
+export type LayerBase = Lab | Reflectance | SpectralState;
+
+/** One layer to apply. */
+export interface Layer {
+  dyes: { profile: DyeProfile; dosPct: number }[];
+  /** Share of the dye that ends up on the fibre, 0–1 (1 = exhausted; default 1). */
+  uptake?: number;
+  /** Share of the fibre the dye reaches, 0–1, for speckling, painting, dry application (default 1). */
+  coverage?: number;
+  /**
+   * What dosPct is measured on: "dyed" (default) — the fibre the dye reaches, at full section depth;
+   * "skein" — the whole skein, so the dye is concentrated onto the covered area and spread over the
+   * sections in proportion to their depths (the dye is conserved).
+   */
+  dosBasis?: "dyed" | "skein";
+  /** Dip-dye / gradient: equal sections along the skein, each with a relative depth 0–1. */
+  gradient?: { sections: number; depths: number[] };
+}
+
+/** A predicted result. */
+export interface Prediction {
+  /** Overall appearance: CIELAB of the area mix of the patches' reflectances. */
+  lab: Lab;
+  reflectance: Reflectance;
+  /** Distinct areas (covered/uncovered, gradient sections) with shares summing to 1. */
+  palette: PaletteEntry[];
+  /** Colour of each gradient section, in order, when the layer has a gradient. */
+  gradient?: Lab[];
+  /** The base for the next layer. */
+  state: SpectralState;
+  /** Plain-words cautions (clamped colours, depths beyond the calibration). */
+  notes: string[];
+}
+
+const isState = (b: LayerBase): b is SpectralState => (b as SpectralState).patches !== undefined;
+
+function toState(base: LayerBase, notes: string[]): SpectralState {
+  if (base instanceof Float64Array) return { patches: [{ reflectance: base, share: 1 }] };
+  if (isState(base)) return base;
+  const est = cachedLabToReflectance(base);
+  if (est.note) notes.push(est.note);
+  return { patches: [{ reflectance: est.reflectance, share: 1 }] };
+}
+
+function check(layer: Layer): SurfaceModel {
+  const bad = (what: string) => {
+    throw new RangeError(what);
+  };
+  const u = layer.uptake ?? 1, cov = layer.coverage ?? 1;
+  if (!(u >= 0 && u <= 1)) bad(`Uptake ${u} is not between 0 and 1.`);
+  if (!(cov >= 0 && cov <= 1)) bad(`Coverage ${cov} is not between 0 and 1.`);
+  for (const d of layer.dyes) if (!(Number.isFinite(d.dosPct) && d.dosPct >= 0)) bad(`Depth ${d.dosPct} % is not a depth of shade.`);
+  const g = layer.gradient;
+  if (g) {
+    if (!(Number.isInteger(g.sections) && g.sections >= 1)) bad(`A gradient needs a whole number of sections (got ${g.sections}).`);
+    if (g.depths.length !== g.sections) bad(`A gradient of ${g.sections} sections needs ${g.sections} depths (got ${g.depths.length}).`);
+    for (const d of g.depths) if (!(d >= 0 && d <= 1)) bad(`Section depth ${d} is not between 0 and 1.`);
+  }
+  const surfaces = new Set(layer.dyes.map((d) => d.profile.surface));
+  if (surfaces.size > 1) bad("The layer mixes profiles learnt with and without the surface correction; refit them alike.");
+  return layer.dyes.length ? layer.dyes[0].profile.surface : "none";
+}
+
+// Scratch for the concentrations of one patch (no allocation per prediction).
+let concBuf = new Float64Array(8);
+
+/** Predict one layer over a base (K/S additivity, Nobbs 1985 / Berns 2000; area mix for coverage). */
+export function predictLayer(base: LayerBase, layer: Layer): Prediction {
+  const notes: string[] = [];
+  const surface = check(layer);
+  const state = toState(base, notes);
+  const nd = layer.dyes.length;
+  if (concBuf.length < nd) concBuf = new Float64Array(nd);
+  const unit = layer.dyes.map((d) => d.profile.unitKs);
+  const uptake = layer.uptake ?? 1;
+  const coverage = layer.coverage ?? 1;
+  const g = layer.gradient;
+  const meanDepth = g ? g.depths.reduce((s, v) => s + v, 0) / g.sections : 1;
+  // Depth multiplier for the whole-skein basis: the dye lands on coverage × (depth-weighted) fibre.
+  const skeinScale = layer.dosBasis === "skein" ? (coverage > 0 && meanDepth > 0 ? 1 / (coverage * meanDepth) : 0) : 1;
+
+  for (const d of layer.dyes) {
+    const c = d.dosPct * uptake * skeinScale * (g ? Math.max(...g.depths) : 1);
+    const top = d.profile.calibratedUpTo;
+    if (top !== undefined && c > top * 1.25) {
+      notes.push(`${d.profile.dyeId} goes on at ${c.toFixed(2)} % here, deeper than any calibration dyeing (${top.toFixed(2)} %): expect the prediction to be less sure.`);
+    }
+  }
+
+  const out: SpectralPatch[] = [];
+  const dye = (p: SpectralPatch, depth: number, share: number, section?: number, sections?: number) => {
+    if (coverage > 0 && share * coverage > 0) {
+      for (let i = 0; i < nd; i++) concBuf[i] = layer.dyes[i].dosPct * uptake * skeinScale * depth;
+      const rho = dyedReflectance(cachedKs(p.reflectance, surface), unit, concBuf, surface);
+      out.push({ reflectance: rho, share: share * coverage, section, sections });
+    }
+    if (coverage < 1) out.push({ reflectance: p.reflectance, share: share * (1 - coverage), section, sections });
+  };
+  for (const p of state.patches) {
+    if (!g) dye(p, 1, p.share, p.section, p.sections);
+    else if (p.sections === g.sections && p.section !== undefined) dye(p, g.depths[p.section], p.share, p.section, g.sections);
+    else for (let s = 0; s < g.sections; s++) dye(p, g.depths[s], p.share / g.sections, s, g.sections);
+  }
+  return summarise(out, g?.sections, notes);
+}
+
+/** Overall curve, palette and section colours of a set of patches. */
+function summarise(patches: SpectralPatch[], sections: number | undefined, notes: string[]): Prediction {
+  if (patches.length === 1 && sections === undefined) {
+    const only = patches[0];
+    const lab = reflectanceToLab(only.reflectance);
+    return { lab, reflectance: only.reflectance, palette: [{ lab, share: 1 }], state: { patches }, notes };
+  }
+  let reflectance: Reflectance;
+  if (patches.length === 1) reflectance = patches[0].reflectance;
+  else {
+    reflectance = new Float64Array(BANDS);
+    for (const p of patches) for (let i = 0; i < BANDS; i++) reflectance[i] += p.share * p.reflectance[i];
+  }
+  const labs = new Map<Reflectance, Lab>();
+  const palette: PaletteEntry[] = [];
+  const index = new Map<Reflectance, PaletteEntry>();
+  for (const p of patches) {
+    let lab = labs.get(p.reflectance);
+    if (!lab) labs.set(p.reflectance, (lab = reflectanceToLab(p.reflectance)));
+    const seen = index.get(p.reflectance);
+    if (seen) seen.share += p.share;
+    else {
+      const e = { lab, share: p.share };
+      index.set(p.reflectance, e);
+      palette.push(e);
+    }
+  }
+  const lab = patches.length === 1 ? palette[0].lab : reflectanceToLab(reflectance);
+  const pred: Prediction = { lab, reflectance, palette, state: { patches }, notes };
+  if (sections !== undefined) {
+    pred.gradient = [];
+    for (let s = 0; s < sections; s++) {
+      const mix = new Float64Array(BANDS);
+      let total = 0;
+      for (const p of patches) {
+        if (p.section !== s) continue;
+        total += p.share;
+        for (let i = 0; i < BANDS; i++) mix[i] += p.share * p.reflectance[i];
+      }
+      if (total > 0) for (let i = 0; i < BANDS; i++) mix[i] /= total;
+      pred.gradient.push(reflectanceToLab(mix));
+    }
+  }
+  return pred;
+}
+
+/** Predict layers in order: each layer's prediction is the base of the next. Returns one per layer. */
+export function predictLayers(base: LayerBase, layers: readonly Layer[]): Prediction[] {
+  const out: Prediction[] = [];
+  let current: LayerBase = base;
+  for (const layer of layers) {
+    const p = predictLayer(current, layer);
+    out.push(p);
+    current = p.state;
+  }
+  return out;
+}
