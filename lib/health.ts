@@ -35,7 +35,7 @@ async function queryDatabase(): Promise<void> {
 export async function checkHealth(
   opts: { database?: () => Promise<unknown>; timeoutMs?: number } = {},
 ): Promise<Health> {
-  const timeoutMs = opts.timeoutMs ?? 3000;
+  const timeoutMs = opts.timeoutMs ?? 5000;
   const [database, storage, mail] = await Promise.all([
     timed(opts.database ?? queryDatabase, timeoutMs),
     timed(checkBucket, timeoutMs),

@@ -26,8 +26,9 @@ pg_user() {
     || die "could not create the postgres user"
 }
 
+# From / so postgres does not complain about a working directory it cannot enter.
 as_pg() {
-  if [ "$(id -un)" = postgres ]; then "$@"; else runuser -u postgres -- "$@"; fi
+  if [ "$(id -un)" = postgres ]; then "$@"; else (cd / && runuser -u postgres -- "$@"); fi
 }
 
 # Where the cluster lives. Inside the project unless PGDATA_DIR says otherwise or the
@@ -59,10 +60,10 @@ pg_psql() { "$(pg_bin)/psql" -X -q -v ON_ERROR_STOP=1 -U postgres -h 127.0.0.1 -
 
 pg_init() {
   [ -f "$PGDIR/PG_VERSION" ] && return 0
-  local parent; parent="$(dirname "$PGDIR")"
-  mkdir -p "$PGDIR"
-  # The fallback location's parents belong to root; postgres only needs to pass through.
-  [ "$parent" != "$DATA" ] && chmod 755 "$parent" "$(dirname "$parent")" 2>/dev/null
+  # Directories created here stay traversable for postgres whatever the caller's umask.
+  (umask 022 && mkdir -p "$PGDIR")
+  as_pg test -x "$(dirname "$PGDIR")" 2>/dev/null \
+    || die "the postgres user cannot reach $(dirname "$PGDIR"); choose another PGDATA_DIR"
   chown postgres:postgres "$PGDIR" && chmod 700 "$PGDIR"
   say "postgres: initdb in $PGDIR"
   as_pg "$(pg_bin)/initdb" -D "$PGDIR" -U postgres --auth=trust --encoding=UTF8 --no-locale \
