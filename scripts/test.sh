@@ -47,8 +47,8 @@ chromium() {
   if [ -x /usr/bin/chromium ]; then say "chromium: /usr/bin/chromium present"; return 0; fi
   [ "$(id -u)" = 0 ] || die "/usr/bin/chromium is missing; install Debian's chromium package"
   say "chromium: installing Debian's chromium package (one-time)"
-  DEBIAN_FRONTEND=noninteractive apt-get update -qq &&
-    DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null &&
+  DEBIAN_FRONTEND=noninteractive apt-get -o DPkg::Lock::Timeout=600 update -qq &&
+    DEBIAN_FRONTEND=noninteractive apt-get -o DPkg::Lock::Timeout=600 install -y -qq chromium >/dev/null &&
     [ -x /usr/bin/chromium ]
 }
 

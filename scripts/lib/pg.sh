@@ -14,7 +14,7 @@ pg_install() {
   [ "$(id -u)" = 0 ] || die "PostgreSQL is not installed and only root can install it (apt-get install postgresql)"
   say "postgres: installing Debian's postgresql package (one-time)"
   export DEBIAN_FRONTEND=noninteractive
-  apt-get update -qq && apt-get install -y -qq postgresql >/dev/null \
+  apt-get -o DPkg::Lock::Timeout=600 update -qq && apt-get -o DPkg::Lock::Timeout=600 install -y -qq postgresql >/dev/null \
     || die "apt-get install postgresql failed"
   [ -n "$(pg_bin)" ] || die "postgresql installed but no /usr/lib/postgresql/*/bin/pg_ctl found"
 }
