@@ -10,7 +10,7 @@ import type { Lab } from "./types";
 export const DIRECTION_THRESHOLD = 0.5;
 
 /** Below this chroma a colour counts as near-neutral and hue is described by a* and b* (our choice). */
-export const NEUTRAL_CHROMA = 4;
+export const NEAR_NEUTRAL_CHROMA = 4;
 
 /** Verdict bands for prediction vs measurement in ΔE00 (our product choice, not a standard). */
 export const VERDICT_CLOSE = 2;
@@ -43,7 +43,7 @@ export function describeDifference(reference: Lab, sample: Lab, threshold = DIRE
 
   const C1 = Math.hypot(reference.a, reference.b);
   const C2 = Math.hypot(sample.a, sample.b);
-  if (C1 < NEUTRAL_CHROMA) {
+  if (C1 < NEAR_NEUTRAL_CHROMA) {
     const da = sample.a - reference.a, db = sample.b - reference.b;
     if (da > threshold) words.push("redder");
     else if (da < -threshold) words.push("greener");
