@@ -1,7 +1,9 @@
 // Every migration, listed by hand in the order they run (no file access in the production build).
 import type { MigrationObject } from "@mikro-orm/core";
 import { Migration20261202005358_studios } from "./Migration20261202005358_studios";
+import { Migration20261202010701_trials } from "./Migration20261202010701_trials";
 
 export const migrationsList: MigrationObject[] = [
   { name: "Migration20261202005358_studios", class: Migration20261202005358_studios },
+  { name: "Migration20261202010701_trials", class: Migration20261202010701_trials },
 ];

@@ -22,8 +22,8 @@ export function SignInClient({ next, error }: { next: string; error?: string }) 
     const res = await signIn("password", { email, password, redirect: false, callbackUrl: next });
     setBusy(false);
     if (res?.ok && !res.error) {
-      router.push(next);
-      router.refresh();
+      // A full navigation, so every server component sees the new session cookie.
+      window.location.assign(next);
     } else {
       setMessage("That e-mail and password do not match. Check both, or ask for a sign-in link instead.");
     }
