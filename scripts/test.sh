@@ -68,7 +68,8 @@ phase chromium 1 chromium
 phase services 1 bash scripts/services.sh start
 phase "fresh databases" 1 fresh_databases
 phase "migrate + seed" 1 migrate_and_seed
-phase vitest 0 npx vitest run
+# The integration globalSetup need not start services or migrate again.
+phase vitest 0 env UNDERTONE_TEST_DB_READY=1 npx vitest run
 phase build 1 npm run --silent build
 phase playwright 0 npx playwright test
 say ""

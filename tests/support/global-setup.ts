@@ -18,9 +18,12 @@ export default function setup() {
   const port = process.env.PG_PORT ?? "54329";
   const url = process.env.TEST_DATABASE_URL ?? `postgres://postgres@127.0.0.1:${port}/undertone_test`;
   process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED = "true";
-  // Idempotent and quick when everything already runs; creates undertone_test when missing.
-  run("bash", ["scripts/services.sh", "start"]);
-  run("npm", ["run", "--silent", "migrate"], { ...process.env, DATABASE_URL: url });
+  // scripts/test.sh has just started the services and migrated a fresh test database.
+  if (process.env.UNDERTONE_TEST_DB_READY !== "1") {
+    // Idempotent and quick when everything already runs; creates undertone_test when missing.
+    run("bash", ["scripts/services.sh", "start"]);
+    run("npm", ["run", "--silent", "migrate"], { ...process.env, DATABASE_URL: url });
+  }
   // Workers start after this and inherit the environment.
   process.env.DATABASE_URL = url;
 }
