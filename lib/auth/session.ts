@@ -1,5 +1,7 @@
 import "server-only";
 import { getServerSession } from "next-auth";
+import { UserSchema } from "@/entities/user";
+import { getEm } from "@/lib/db";
 import { authOptions } from "./options";
 
 export interface SessionUser {
@@ -8,10 +10,17 @@ export interface SessionUser {
   name: string;
 }
 
-/** The signed-in user of this request, or null. */
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/**
+ * The signed-in user of this request, or null. The JWT only names the user: the row is read
+ * each time, so a deleted account counts as signed out and a renamed one shows its new name.
+ */
 export async function getSessionUser(): Promise<SessionUser | null> {
   const session = await getServerSession(authOptions);
-  const u = session?.user;
-  if (!u?.id || !u.email) return null;
-  return { id: u.id, email: u.email, name: u.name ?? u.email };
+  const id = session?.user?.id;
+  if (typeof id !== "string" || !UUID.test(id)) return null;
+  const em = await getEm();
+  const u = await em.findOne(UserSchema, { id });
+  return u ? { id: u.id, email: u.email, name: u.name } : null;
 }
