@@ -2,30 +2,29 @@
 // A studio predicts many layers over the same few bases, and LHTSS (a Newton solve) costs ~0.2 ms
 // where the rest of a prediction costs microseconds.
 import type { Lab, Reflectance } from "../types";
-import { ksSpectrum, type SurfaceModel } from "./kubelka-munk";
+import { SAUNDERSON_DEFAULT, ksSpectrum, type SurfaceModel } from "./kubelka-munk";
 import { labToReflectance, type ReflectanceEstimate } from "./reflectance";
 
 const LAB_CACHE_SIZE = 1024;
 const labCache = new Map<string, ReflectanceEstimate>();
 
 /**
- * `labToReflectance` remembered for the last 1024 distinct Lab values (least recently used dropped).
+ * `labToReflectance` remembered for up to 1024 distinct Lab values (the oldest entry is dropped).
  * The returned curve is shared: treat it as read-only.
  */
-export function cachedLabToReflectance(lab: Lab): ReflectanceEstimate {
-  const key = `${lab.L}|${lab.a}|${lab.b}`;
+export function cachedLabToReflectance(lab: Lab, floor = 0): ReflectanceEstimate {
+  const key = `${lab.L}|${lab.a}|${lab.b}|${floor}`;
   const hit = labCache.get(key);
-  if (hit) {
-    labCache.delete(key); // re-insert to mark as recently used
-    labCache.set(key, hit);
-    return hit;
-  }
-  const est = labToReflectance(lab);
+  if (hit) return hit;
+  const est = labToReflectance(lab, { floor });
   Object.freeze(est);
   labCache.set(key, est);
   if (labCache.size > LAB_CACHE_SIZE) labCache.delete(labCache.keys().next().value as string);
   return est;
 }
+
+/** Lowest reflectance of curves estimated for a surface model: k1 under Saunderson's correction. */
+export const floorFor = (surface: SurfaceModel): number => (surface === "saunderson" ? SAUNDERSON_DEFAULT.k1 : 0);
 
 const ksCache: Record<SurfaceModel, WeakMap<Reflectance, Float64Array>> = {
   none: new WeakMap(),

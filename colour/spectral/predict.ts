@@ -3,7 +3,7 @@
 // A prediction's `state` is the base of the next layer, so layers chain.
 import type { Lab, PaletteEntry, Reflectance } from "../types";
 import { BANDS } from "./cie-data";
-import { cachedKs, cachedLabToReflectance } from "./cache";
+import { cachedKs, cachedLabToReflectance, floorFor } from "./cache";
 import { dyedReflectance, type SurfaceModel } from "./kubelka-munk";
 import type { DyeProfile } from "./profile";
 import { reflectanceToLab } from "./reflectance";
@@ -58,75 +58,104 @@ export interface Prediction {
   notes: string[];
 }
 
+const NB = BANDS; // a plain local binding for the loops
+
 const isState = (b: LayerBase): b is SpectralState => (b as SpectralState).patches !== undefined;
 
-function toState(base: LayerBase, notes: string[]): SpectralState {
+function toState(base: LayerBase, surface: SurfaceModel, notes: string[]): SpectralState {
   if (base instanceof Float64Array) return { patches: [{ reflectance: base, share: 1 }] };
   if (isState(base)) return base;
-  const est = cachedLabToReflectance(base);
+  const est = cachedLabToReflectance(base, floorFor(surface));
   if (est.note) notes.push(est.note);
   return { patches: [{ reflectance: est.reflectance, share: 1 }] };
 }
 
-function check(layer: Layer): SurfaceModel {
-  const bad = (what: string) => {
-    throw new RangeError(what);
-  };
-  const u = layer.uptake ?? 1, cov = layer.coverage ?? 1;
-  if (!(u >= 0 && u <= 1)) bad(`Uptake ${u} is not between 0 and 1.`);
-  if (!(cov >= 0 && cov <= 1)) bad(`Coverage ${cov} is not between 0 and 1.`);
-  for (const d of layer.dyes) if (!(Number.isFinite(d.dosPct) && d.dosPct >= 0)) bad(`Depth ${d.dosPct} % is not a depth of shade.`);
-  const g = layer.gradient;
-  if (g) {
-    if (!(Number.isInteger(g.sections) && g.sections >= 1)) bad(`A gradient needs a whole number of sections (got ${g.sections}).`);
-    if (g.depths.length !== g.sections) bad(`A gradient of ${g.sections} sections needs ${g.sections} depths (got ${g.depths.length}).`);
-    for (const d of g.depths) if (!(d >= 0 && d <= 1)) bad(`Section depth ${d} is not between 0 and 1.`);
-  }
-  const surfaces = new Set(layer.dyes.map((d) => d.profile.surface));
-  if (surfaces.size > 1) bad("The layer mixes profiles learnt with and without the surface correction; refit them alike.");
-  return layer.dyes.length ? layer.dyes[0].profile.surface : "none";
+function fail(what: string): never {
+  throw new RangeError(what);
 }
 
-// Scratch for the concentrations of one patch (no allocation per prediction).
+/** Validates a layer and returns the surface model its profiles share. */
+function check(layer: Layer): SurfaceModel {
+  const u = layer.uptake ?? 1, cov = layer.coverage ?? 1;
+  if (!(u >= 0 && u <= 1)) fail(`Uptake ${u} is not between 0 and 1.`);
+  if (!(cov >= 0 && cov <= 1)) fail(`Coverage ${cov} is not between 0 and 1.`);
+  const dyes = layer.dyes;
+  for (let i = 0; i < dyes.length; i++) {
+    if (!(Number.isFinite(dyes[i].dosPct) && dyes[i].dosPct >= 0)) fail(`Depth ${dyes[i].dosPct} % is not a depth of shade.`);
+    if (dyes[i].profile.surface !== dyes[0].profile.surface) {
+      fail("The layer mixes profiles learnt with and without the surface correction; refit them alike.");
+    }
+  }
+  const g = layer.gradient;
+  if (g) {
+    if (!(Number.isInteger(g.sections) && g.sections >= 1)) fail(`A gradient needs a whole number of sections (got ${g.sections}).`);
+    if (g.depths.length !== g.sections) fail(`A gradient of ${g.sections} sections needs ${g.sections} depths (got ${g.depths.length}).`);
+    for (const d of g.depths) if (!(d >= 0 && d <= 1)) fail(`Section depth ${d} is not between 0 and 1.`);
+  }
+  return dyes.length ? dyes[0].profile.surface : "none";
+}
+
+/** Notes for dyes put on deeper than their calibration reached. */
+function depthNotes(layer: Layer, scale: number, notes: string[]): void {
+  const top = layer.gradient ? Math.max(...layer.gradient.depths) : 1;
+  for (const d of layer.dyes) {
+    const c = d.dosPct * (layer.uptake ?? 1) * scale * top;
+    const cal = d.profile.calibratedUpTo;
+    if (cal !== undefined && c > cal * 1.25) {
+      notes.push(
+        `${d.profile.dyeId} goes on at ${c.toFixed(2)} % here, deeper than any calibration dyeing ` +
+          `(${cal.toFixed(2)} %): expect the prediction to be less sure.`,
+      );
+    }
+  }
+}
+
+// Per-call scratch (predictions are synchronous, so one set of buffers serves every call).
 let concBuf = new Float64Array(8);
+let unitBuf: Float64Array[] = [];
+
+/** Dyes one patch at a relative depth; pushes the covered and uncovered parts. */
+function dyePatch(
+  out: SpectralPatch[], layer: Layer, p: SpectralPatch, depth: number, share: number, scale: number,
+  surface: SurfaceModel, section: number | undefined, sections: number | undefined,
+): void {
+  const coverage = layer.coverage ?? 1;
+  if (coverage > 0 && share > 0) {
+    const c = (layer.uptake ?? 1) * scale * depth;
+    for (let i = 0; i < layer.dyes.length; i++) concBuf[i] = layer.dyes[i].dosPct * c;
+    const rho = dyedReflectance(cachedKs(p.reflectance, surface), unitBuf, concBuf, surface);
+    out.push({ reflectance: rho, share: share * coverage, section, sections });
+  }
+  if (coverage < 1 && share > 0) out.push({ reflectance: p.reflectance, share: share * (1 - coverage), section, sections });
+}
 
 /** Predict one layer over a base (K/S additivity, Nobbs 1985 / Berns 2000; area mix for coverage). */
 export function predictLayer(base: LayerBase, layer: Layer): Prediction {
   const notes: string[] = [];
   const surface = check(layer);
-  const state = toState(base, notes);
+  const state = toState(base, surface, notes);
   const nd = layer.dyes.length;
   if (concBuf.length < nd) concBuf = new Float64Array(nd);
-  const unit = layer.dyes.map((d) => d.profile.unitKs);
-  const uptake = layer.uptake ?? 1;
+  unitBuf.length = nd;
+  for (let i = 0; i < nd; i++) unitBuf[i] = layer.dyes[i].profile.unitKs;
   const coverage = layer.coverage ?? 1;
   const g = layer.gradient;
-  const meanDepth = g ? g.depths.reduce((s, v) => s + v, 0) / g.sections : 1;
-  // Depth multiplier for the whole-skein basis: the dye lands on coverage × (depth-weighted) fibre.
-  const skeinScale = layer.dosBasis === "skein" ? (coverage > 0 && meanDepth > 0 ? 1 / (coverage * meanDepth) : 0) : 1;
-
-  for (const d of layer.dyes) {
-    const c = d.dosPct * uptake * skeinScale * (g ? Math.max(...g.depths) : 1);
-    const top = d.profile.calibratedUpTo;
-    if (top !== undefined && c > top * 1.25) {
-      notes.push(`${d.profile.dyeId} goes on at ${c.toFixed(2)} % here, deeper than any calibration dyeing (${top.toFixed(2)} %): expect the prediction to be less sure.`);
-    }
-  }
+  let meanDepth = 1;
+  if (g) meanDepth = g.depths.reduce((s, v) => s + v, 0) / g.sections;
+  // Whole-skein basis: the dye lands on coverage × (depth-weighted) fibre, so it is concentrated there.
+  const scale = layer.dosBasis === "skein" ? (coverage > 0 && meanDepth > 0 ? 1 / (coverage * meanDepth) : 0) : 1;
+  depthNotes(layer, scale, notes);
 
   const out: SpectralPatch[] = [];
-  const dye = (p: SpectralPatch, depth: number, share: number, section?: number, sections?: number) => {
-    if (coverage > 0 && share * coverage > 0) {
-      for (let i = 0; i < nd; i++) concBuf[i] = layer.dyes[i].dosPct * uptake * skeinScale * depth;
-      const rho = dyedReflectance(cachedKs(p.reflectance, surface), unit, concBuf, surface);
-      out.push({ reflectance: rho, share: share * coverage, section, sections });
-    }
-    if (coverage < 1) out.push({ reflectance: p.reflectance, share: share * (1 - coverage), section, sections });
-  };
   for (const p of state.patches) {
-    if (!g) dye(p, 1, p.share, p.section, p.sections);
-    else if (p.sections === g.sections && p.section !== undefined) dye(p, g.depths[p.section], p.share, p.section, g.sections);
-    else for (let s = 0; s < g.sections; s++) dye(p, g.depths[s], p.share / g.sections, s, g.sections);
+    if (!g) dyePatch(out, layer, p, 1, p.share, scale, surface, p.section, p.sections);
+    else if (p.sections === g.sections && p.section !== undefined) {
+      dyePatch(out, layer, p, g.depths[p.section], p.share, scale, surface, p.section, g.sections);
+    } else {
+      for (let s = 0; s < g.sections; s++) dyePatch(out, layer, p, g.depths[s], p.share / g.sections, scale, surface, s, g.sections);
+    }
   }
+  unitBuf.length = 0;
   return summarise(out, g?.sections, notes);
 }
 
@@ -140,19 +169,17 @@ function summarise(patches: SpectralPatch[], sections: number | undefined, notes
   let reflectance: Reflectance;
   if (patches.length === 1) reflectance = patches[0].reflectance;
   else {
-    reflectance = new Float64Array(BANDS);
-    for (const p of patches) for (let i = 0; i < BANDS; i++) reflectance[i] += p.share * p.reflectance[i];
+    reflectance = new Float64Array(NB);
+    for (const p of patches) for (let i = 0; i < NB; i++) reflectance[i] += p.share * p.reflectance[i];
   }
-  const labs = new Map<Reflectance, Lab>();
+  // One palette entry per distinct curve (uncovered parts of every section share the base's curve).
   const palette: PaletteEntry[] = [];
   const index = new Map<Reflectance, PaletteEntry>();
   for (const p of patches) {
-    let lab = labs.get(p.reflectance);
-    if (!lab) labs.set(p.reflectance, (lab = reflectanceToLab(p.reflectance)));
     const seen = index.get(p.reflectance);
     if (seen) seen.share += p.share;
     else {
-      const e = { lab, share: p.share };
+      const e = { lab: reflectanceToLab(p.reflectance), share: p.share };
       index.set(p.reflectance, e);
       palette.push(e);
     }
@@ -162,14 +189,15 @@ function summarise(patches: SpectralPatch[], sections: number | undefined, notes
   if (sections !== undefined) {
     pred.gradient = [];
     for (let s = 0; s < sections; s++) {
-      const mix = new Float64Array(BANDS);
-      let total = 0;
+      let only: SpectralPatch | undefined, count = 0, total = 0;
+      for (const p of patches) if (p.section === s) { only = p; count++; total += p.share; }
+      if (count === 1) { pred.gradient.push(index.get(only!.reflectance)!.lab); continue; }
+      const mix = new Float64Array(NB);
       for (const p of patches) {
         if (p.section !== s) continue;
-        total += p.share;
-        for (let i = 0; i < BANDS; i++) mix[i] += p.share * p.reflectance[i];
+        for (let i = 0; i < NB; i++) mix[i] += p.share * p.reflectance[i];
       }
-      if (total > 0) for (let i = 0; i < BANDS; i++) mix[i] /= total;
+      if (total > 0) for (let i = 0; i < NB; i++) mix[i] /= total;
       pred.gradient.push(reflectanceToLab(mix));
     }
   }

@@ -6,9 +6,10 @@ import { Matrix, SingularValueDecomposition } from "ml-matrix";
 import type { Lab } from "../types";
 import { deltaE00 } from "../difference";
 import { BANDS } from "./cie-data";
-import { cachedKs, cachedLabToReflectance } from "./cache";
+import { cachedKs, cachedLabToReflectance, floorFor } from "./cache";
 import { dyedReflectance, type SurfaceModel } from "./kubelka-munk";
 import { nnls } from "./nnls";
+import { refineProfiles } from "./refine";
 import { reflectanceToLab } from "./reflectance";
 
 /** One dye of a recipe and its depth of shade (% on weight of fibre). */
@@ -51,6 +52,11 @@ export interface FitOptions {
   surface?: SurfaceModel;
   /** Fibre class the dyeings were made on, copied onto each profile. */
   fibre?: string;
+  /**
+   * After NNLS, adjust the spectra so the model reproduces the measured colours themselves
+   * (see refine.ts; default true). False keeps the plain NNLS spectra.
+   */
+  refine?: boolean;
 }
 
 /** The outcome of a fit: profiles with their quality, or a plain reason why none could be learnt. */
@@ -122,8 +128,8 @@ export function fitDyeProfiles(dyeings: readonly CalibrationDyeing[], options: F
   const baseKs: Float64Array[] = [];
   const deltaKs: Float64Array[] = [];
   for (const d of used) {
-    const b = cachedLabToReflectance(d.base);
-    const res = cachedLabToReflectance(d.result);
+    const b = cachedLabToReflectance(d.base, floorFor(surface));
+    const res = cachedLabToReflectance(d.result, floorFor(surface));
     if (!b.matched || !res.matched) {
       notes.push("A calibration colour is more saturated than the model's curves can reach; the profile is approximate.");
     }
@@ -133,10 +139,14 @@ export function fitDyeProfiles(dyeings: readonly CalibrationDyeing[], options: F
     deltaKs.push(kr.map((v, i) => v - kb[i]));
   }
 
-  const unit = ids.map(() => new Float64Array(BANDS));
+  let unit: Float64Array[] = ids.map(() => new Float64Array(BANDS));
   for (let band = 0; band < BANDS; band++) {
     const k = nnls(A, deltaKs.map((dk) => dk[band]));
     k.forEach((v, i) => (unit[i][band] = v));
+  }
+  if (options.refine !== false) {
+    const rows = used.map((d, r) => ({ baseKs: baseKs[r], conc: ids.map((_, i) => A.get(r, i)), result: d.result }));
+    unit = refineProfiles(rows, unit, surface);
   }
 
   // Re-predict every used dyeing and score it.

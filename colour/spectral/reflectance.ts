@@ -9,31 +9,34 @@ import { T_MATRIX, spectralRgbToXyz, xyzToSpectralRgb } from "./spectral-rgb";
 export { BLACK_REFLECTANCE, differenceMatrix, lhtss } from "./lhtss";
 export { T_MATRIX } from "./spectral-rgb";
 
+// Module-local aliases: hot loops then read plain bindings (some bundlers turn imports into getters).
+const WX = WEIGHT_X, WY = WEIGHT_Y, WZ = WEIGHT_Z, NB = BANDS, WHITE = SPECTRAL_WHITE;
+
 /** Reflectance → XYZ under D65, 2° observer, Y of the perfect white = 1 (CIE 15:2004 weighted sums). */
 export function reflectanceToXyz(rho: Reflectance): Xyz {
   let X = 0, Y = 0, Z = 0;
-  for (let i = 0; i < BANDS; i++) {
+  for (let i = 0; i < NB; i++) {
     const r = rho[i];
-    X += WEIGHT_X[i] * r;
-    Y += WEIGHT_Y[i] * r;
-    Z += WEIGHT_Z[i] * r;
+    X += WX[i] * r;
+    Y += WY[i] * r;
+    Z += WZ[i] * r;
   }
   return { X, Y, Z };
 }
 
 /** Reflectance → CIELAB D65 (white = the table's white, so a flat curve is neutral; CIE 15:2004). */
 export function reflectanceToLab(rho: Reflectance): Lab {
-  return xyzToLab(reflectanceToXyz(rho), SPECTRAL_WHITE);
+  return xyzToLab(reflectanceToXyz(rho), WHITE);
 }
 
 /** Reflectance → linear RGB (sRGB primaries) through Burns's T matrix. */
 export function reflectanceToLinearRgb(rho: Reflectance): Rgb {
   const T = T_MATRIX;
   let r = 0, g = 0, b = 0;
-  for (let i = 0; i < BANDS; i++) {
+  for (let i = 0; i < NB; i++) {
     r += T[i] * rho[i];
-    g += T[BANDS + i] * rho[i];
-    b += T[2 * BANDS + i] * rho[i];
+    g += T[NB + i] * rho[i];
+    b += T[2 * NB + i] * rho[i];
   }
   return [r, g, b];
 }
@@ -59,44 +62,63 @@ const GAMUT_SLACK = 1e-9;
 
 const fmt = (l: Lab) => `L* ${l.L.toFixed(1)}, a* ${l.a.toFixed(1)}, b* ${l.b.toFixed(1)}`;
 
+/** Options of `labToReflectance`. */
+export interface LabToReflectanceOptions {
+  /**
+   * Lowest reflectance allowed (default 0). With Saunderson's correction a measured curve cannot
+   * fall below k1 (the light the surface reflects), so that path asks for a floor of k1.
+   */
+  floor?: number;
+  /** Curve to write into. */
+  out?: Reflectance;
+}
+
 /**
  * CIELAB D65 → reflectance by LHTSS (Burns 2020): Lab → XYZ (table white) → linear RGB → curve.
  * A colour outside sRGB is still solved as it is when a curve in (0, 1) reaches it (deep
  * turquoises and yellows usually do). Otherwise it is pulled toward the grey of the same Y, to the
  * most saturated colour a curve reaches (bisection), and a note says so; beyond white or black it
- * is clamped.
+ * is clamped. With a floor f the curve is f + (1 − f)·ρ′, ρ′ solved for (rgb − f)/(1 − f), which
+ * is exact because T's rows sum to 1.
  */
-export function labToReflectance(lab: Lab, out?: Reflectance): ReflectanceEstimate {
-  const lin = xyzToSpectralRgb(labToXyz(lab, SPECTRAL_WHITE));
+export function labToReflectance(lab: Lab, options: LabToReflectanceOptions = {}): ReflectanceEstimate {
+  const floor = options.floor ?? 0;
+  const out = options.out;
+  const lin = xyzToSpectralRgb(labToXyz(lab, WHITE));
   const inGamut = lin.every((v) => v >= -GAMUT_SLACK && v <= 1 + GAMUT_SLACK);
-  if (inGamut) {
-    const c = lin.map((v) => Math.min(1, Math.max(0, v))) as unknown as Rgb;
-    return { reflectance: lhtss(c, out), inGamut, matched: true };
+  const scaled = lin.map((v) => (v - floor) / (1 - floor)) as unknown as Rgb;
+  const lift = (rho: Reflectance): Reflectance => {
+    if (floor > 0) for (let i = 0; i < rho.length; i++) rho[i] = floor + (1 - floor) * rho[i];
+    return rho;
+  };
+  if (scaled.every((v) => v >= -GAMUT_SLACK && v <= 1 + GAMUT_SLACK)) {
+    const c = scaled.map((v) => Math.min(1, Math.max(0, v))) as unknown as Rgb;
+    return { reflectance: lift(lhtss(c, out)), inGamut, matched: true };
   }
   const loose = { allowOutOfGamut: true, maxIterations: 40 };
   try {
-    return { reflectance: lhtss(lin, out, loose), inGamut, matched: true };
+    return { reflectance: lift(lhtss(scaled, out, loose)), inGamut, matched: true };
   } catch {
-    // fall through: no curve in (0, 1) reaches this colour
+    // fall through: no curve in range reaches this colour
   }
-  const Y = Math.min(1, Math.max(0, Number.isFinite(lin[0] + lin[1] + lin[2]) ? spectralRgbToXyz(lin).Y : 0));
-  const toward = (t: number): Rgb => [Y + t * (lin[0] - Y), Y + t * (lin[1] - Y), Y + t * (lin[2] - Y)];
+  const Yraw = spectralRgbToXyz(scaled).Y;
+  const Y = Number.isFinite(Yraw) ? Math.min(1, Math.max(0, Yraw)) : 0;
+  const toward = (t: number): Rgb => [Y + t * (scaled[0] - Y), Y + t * (scaled[1] - Y), Y + t * (scaled[2] - Y)];
   let lo = 0, hi = 1;
-  let best = lhtss([Y, Y, Y], out);
   for (let step = 0; step < 12; step++) {
     const t = (lo + hi) / 2;
     try {
-      best = lhtss(toward(t), out, loose);
+      lhtss(toward(t), undefined, loose);
       lo = t;
     } catch {
       hi = t;
     }
   }
-  if (lo > 0) best = lhtss(toward(lo), out, loose);
+  const best = lift(lo > 0 ? lhtss(toward(lo), out, loose) : lhtss([Y, Y, Y], out));
   const got = reflectanceToLab(best);
   const note =
     `This colour (${fmt(lab)}) is beyond what the model's smooth reflectance curves can reach; it works from ` +
-    `the nearest less saturated colour (${fmt(got)}), so treat its prediction as approximate.`;
+    `the nearest reachable colour (${fmt(got)}), so treat its prediction as approximate.`;
   return { reflectance: best, inGamut, matched: false, note };
 }
 

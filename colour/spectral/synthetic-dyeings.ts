@@ -3,7 +3,7 @@
 // reported only as CIELAB, as a studio would measure them. Nothing here is a real dye's data.
 import type { Lab, Reflectance } from "../types";
 import { BANDS, wavelengthOf } from "./cie-data";
-import { dyedReflectance, ksSpectrum } from "./kubelka-munk";
+import { dyedReflectance, ksSpectrum, saundersonForward, type SurfaceModel } from "./kubelka-munk";
 import type { CalibrationDyeing, DyeAmount } from "./profile";
 import { reflectanceToLab } from "./reflectance";
 
@@ -48,11 +48,19 @@ export const SYNTHETIC_BASES: Readonly<Record<"white" | "grey" | "blush", Reflec
   return { white, grey, blush };
 })();
 
-/** The "true" curve of a base after dyes (exact K/S additivity). */
-export function trueResult(base: Reflectance, dyes: readonly DyeAmount[], uptake = 1): Reflectance {
+/**
+ * The "true" curve of a base after dyes (exact K/S additivity). With surface "saunderson" the base
+ * curve is the body reflectance and the curve returned is what a measurement sees (Saunderson 1942).
+ */
+export function trueResult(base: Reflectance, dyes: readonly DyeAmount[], uptake = 1, surface: SurfaceModel = "none"): Reflectance {
   const unit = dyes.map((d) => TRUE_UNIT_KS[d.dyeId as SyntheticDyeId]);
   if (unit.some((u) => !u)) throw new RangeError(`Unknown synthetic dye in ${dyes.map((d) => d.dyeId).join(", ")}.`);
-  return dyedReflectance(ksSpectrum(base), unit, dyes.map((d) => d.dosPct * uptake));
+  return dyedReflectance(ksSpectrum(base), unit, dyes.map((d) => d.dosPct * uptake), surface);
+}
+
+/** What a measurement of a base sees: the curve itself, or with Saunderson's surface added. */
+export function measuredBase(base: Reflectance, surface: SurfaceModel = "none"): Reflectance {
+  return surface === "saunderson" ? base.map((r) => saundersonForward(r)) : base;
 }
 
 /** Seeded pseudo-random numbers in [0, 1) (mulberry32; common practice for reproducible tests). */
@@ -70,6 +78,8 @@ export function seededRandom(seed: number): () => number {
 /** Options of a synthetic dyeing. */
 export interface SyntheticOptions {
   uptake?: number;
+  /** Add Saunderson's surface to every measurement (default "none"). */
+  surface?: SurfaceModel;
   /** Standard deviation of Gaussian noise added to L*, a*, b* of the result (a measuring error). */
   noiseSd?: number;
   random?: () => number;
@@ -84,9 +94,10 @@ function noisy(lab: Lab, sd: number, random: () => number): Lab {
 /** One synthetic dyeing as a studio would record it: base Lab, dyes, uptake, measured result Lab. */
 export function syntheticDyeing(base: Reflectance, dyes: DyeAmount[], options: SyntheticOptions = {}): CalibrationDyeing {
   const uptake = options.uptake ?? 1;
-  const result = reflectanceToLab(trueResult(base, dyes, uptake));
+  const surface = options.surface ?? "none";
+  const result = reflectanceToLab(trueResult(base, dyes, uptake, surface));
   return {
-    base: reflectanceToLab(base),
+    base: reflectanceToLab(measuredBase(base, surface)),
     dyes,
     ...(options.uptake !== undefined ? { uptake } : {}),
     result: noisy(result, options.noiseSd ?? 0, options.random ?? Math.random),
