@@ -3,6 +3,7 @@ import { InvitationSchema, MembershipSchema, StudioSchema } from "./studio";
 import { UserSchema, VerificationTokenSchema } from "./user";
 import { DyeSchema, StockSolutionSchema, YarnBaseSchema } from "./library";
 import { LayerSchema, StepTimerSchema, TrialSchema } from "./trial";
+import { PhotoSchema, ReadingSchema, ReferenceCardSchema } from "./photo";
 
 export const entities = [
   UserSchema,
@@ -16,6 +17,9 @@ export const entities = [
   TrialSchema,
   LayerSchema,
   StepTimerSchema,
+  PhotoSchema,
+  ReferenceCardSchema,
+  ReadingSchema,
 ];
 
 export * from "./base";
@@ -23,3 +27,4 @@ export * from "./studio";
 export * from "./user";
 export * from "./library";
 export * from "./trial";
+export * from "./photo";
