@@ -4,6 +4,7 @@ import { UserSchema, VerificationTokenSchema } from "./user";
 import { DyeSchema, StockSolutionSchema, YarnBaseSchema } from "./library";
 import { LayerSchema, StepTimerSchema, TrialSchema } from "./trial";
 import { PhotoSchema, ReadingSchema, ReferenceCardSchema } from "./photo";
+import { ActivityEventSchema, CommentSchema, FollowSchema, MailOutboxSchema, NotificationSchema } from "./comment";
 
 export const entities = [
   UserSchema,
@@ -20,6 +21,11 @@ export const entities = [
   PhotoSchema,
   ReferenceCardSchema,
   ReadingSchema,
+  CommentSchema,
+  NotificationSchema,
+  FollowSchema,
+  ActivityEventSchema,
+  MailOutboxSchema,
 ];
 
 export * from "./base";
@@ -28,3 +34,4 @@ export * from "./user";
 export * from "./library";
 export * from "./trial";
 export * from "./photo";
+export * from "./comment";
