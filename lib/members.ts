@@ -30,9 +30,13 @@ async function findMember(em: EntityManager, studio: Studio, memberId: string): 
   return m;
 }
 
-/** Locks the studio's owner rows so two owners cannot demote each other at the same moment. */
+/**
+ * Locks the studio's owner rows so two owners cannot demote each other at the same moment.
+ * Runs through `em.execute`, which joins the caller's transaction (a bare connection would
+ * take the lock outside it and release it at once).
+ */
 async function ownerCount(em: EntityManager, studio: Studio): Promise<number> {
-  const rows = await em.getConnection().execute<{ id: string }[]>(
+  const rows = await em.execute<{ id: string }[]>(
     `select id from memberships where studio_id = ? and role = 'owner' for update`,
     [studio.id],
   );
