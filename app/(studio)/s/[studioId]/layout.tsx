@@ -1,6 +1,7 @@
 import { StudioNav } from "@/components/shell/studio-nav";
 import { TopBar } from "@/components/shell/top-bar";
 import { StudioProvider } from "@/components/studio/studio-context";
+import { TimerBar } from "@/components/timers/timer-bar";
 import { requireMembership } from "@/lib/pages/studio";
 
 export default async function StudioLayout({
@@ -19,6 +20,7 @@ export default async function StudioLayout({
         <StudioNav studioId={m.studio.id} role={m.role} />
         <main className="min-w-0 flex-1 px-4 pt-4 pb-28 md:px-0 md:pb-10">{children}</main>
       </div>
+      <TimerBar />
     </StudioProvider>
   );
 }

@@ -1,0 +1,111 @@
+"use client";
+
+import { useState } from "react";
+import { Button } from "@/components/ui/button";
+import { useStudio } from "@/components/studio/studio-context";
+import { primeAlerts } from "./alerts";
+import { useStartTimer } from "./use-timers";
+
+export interface TimerPreset {
+  label: string;
+  minutes: number;
+}
+
+const SETTING_WORDS = { simmer: "Simmer", steam: "Steam", microwave: "Microwave" } as const;
+/** Usual lengths when the layer gives none [common practice]: steam 20–45 min, simmer/hold 30–45 min, short microwave bursts. */
+const SETTING_DEFAULT_MIN = { simmer: 30, steam: 20, microwave: 2 } as const;
+
+/** The timers a layer offers: its own setting step first, then a rest and a hold. */
+export function presetsFor(layer: {
+  setting: { method: "simmer" | "steam" | "microwave" | "none"; minutes?: number | null };
+  minutes?: number | null;
+}): TimerPreset[] {
+  const out: TimerPreset[] = [];
+  const s = layer.setting.method;
+  if (s !== "none") out.push({ label: SETTING_WORDS[s], minutes: layer.setting.minutes || SETTING_DEFAULT_MIN[s] });
+  out.push({ label: "Rest", minutes: 5 });
+  const hold = layer.minutes || 30;
+  if (!out.some((p) => p.minutes === hold && p.label !== "Rest")) out.push({ label: "Hold", minutes: hold });
+  return out;
+}
+
+/** Start buttons for a layer's step timers: the setting step in one tap, others one tap further. */
+export function TimerStart({
+  trialId,
+  layerId,
+  presets,
+}: {
+  trialId: string;
+  layerId: string;
+  presets: TimerPreset[];
+}) {
+  const { studioId } = useStudio();
+  const start = useStartTimer(studioId);
+  const [more, setMore] = useState(false);
+  const [custom, setCustom] = useState({ label: "", minutes: "" });
+  const go = (label: string, minutes: number) => {
+    primeAlerts();
+    start.mutate({ trialId, layerId, label, durationSec: Math.round(minutes * 60) }, { onSuccess: () => setMore(false) });
+  };
+  const [first, ...rest] = presets;
+  const customMinutes = Number(custom.minutes.replace(",", "."));
+  return (
+    <div className="space-y-2">
+      <div className="flex flex-wrap gap-2">
+        {first && (
+          <Button variant="plain" disabled={start.isPending} onClick={() => go(first.label, first.minutes)}>
+            <span aria-hidden="true">⏱</span> {first.label} {first.minutes} min
+          </Button>
+        )}
+        <Button variant="quiet" aria-expanded={more} onClick={() => setMore(!more)}>
+          {more ? "Fewer timers" : "Other timer"}
+        </Button>
+      </div>
+      {more && (
+        <div className="space-y-2 rounded-md border border-rule bg-paper p-3">
+          <div className="flex flex-wrap gap-2">
+            {rest.map((p) => (
+              <Button key={p.label} variant="plain" disabled={start.isPending} onClick={() => go(p.label, p.minutes)}>
+                {p.label} {p.minutes} min
+              </Button>
+            ))}
+          </div>
+          <form
+            className="flex items-end gap-2"
+            onSubmit={(e) => {
+              e.preventDefault();
+              if (customMinutes > 0) go(custom.label.trim() || "Step", customMinutes);
+            }}
+          >
+            <label className="min-w-0 flex-1 text-sm text-ink-soft">
+              Step
+              <input
+                className="mt-1 block min-h-11 w-full rounded-md border border-rule-strong bg-sheet px-3 text-base text-ink"
+                value={custom.label}
+                placeholder="Cool down"
+                onChange={(e) => setCustom({ ...custom, label: e.target.value })}
+              />
+            </label>
+            <label className="w-20 text-sm text-ink-soft">
+              Minutes
+              <input
+                className="tabular mt-1 block min-h-11 w-full rounded-md border border-rule-strong bg-sheet px-3 text-base text-ink"
+                inputMode="decimal"
+                value={custom.minutes}
+                onChange={(e) => setCustom({ ...custom, minutes: e.target.value })}
+              />
+            </label>
+            <Button type="submit" disabled={!(customMinutes > 0) || start.isPending}>
+              Start
+            </Button>
+          </form>
+        </div>
+      )}
+      {start.error && (
+        <p role="alert" className="text-sm text-danger">
+          {start.error.message}
+        </p>
+      )}
+    </div>
+  );
+}
