@@ -1,0 +1,14 @@
+// GET /api/studios/:studioId/trials/:trialId/photos – the trial's photos and readings
+import { isUuid, withStudio } from "@/lib/auth/with-studio";
+import { notFound } from "@/lib/errors";
+import { listPhotos } from "@/lib/photos/photos";
+import { listReadings } from "@/lib/photos/readings";
+
+export const GET = withStudio<{ studioId: string; trialId: string }>(
+  async ({ em, studio, params }) => {
+    if (!isUuid(params.trialId)) throw notFound("This trial");
+    const [photos, readings] = [await listPhotos(em, studio, params.trialId), await listReadings(em, studio, params.trialId)];
+    return Response.json({ photos, readings });
+  },
+  { can: "photo.read" },
+);

@@ -1,0 +1,164 @@
+import "server-only";
+import { LockMode } from "@mikro-orm/core";
+import type { EntityManager } from "@mikro-orm/postgresql";
+import { StockSolutionSchema, YarnBaseSchema } from "@/entities/library";
+import type { Studio } from "@/entities/studio";
+import { type Layer, LayerSchema, type Trial, TrialSchema } from "@/entities/trial";
+import { UserSchema } from "@/entities/user";
+import { isUuid } from "@/lib/auth/with-studio";
+import { badRequest, notFound } from "@/lib/errors";
+import type { CopyInput, TrialInput, TrialPatch } from "@/lib/schemas/trial";
+import { enteredFromDos } from "./amounts";
+import { loadLibrary, trialDto } from "./dto";
+import { notesText } from "./notes";
+import type { TrialDto } from "./types";
+
+// Trials: create, read, update with optimistic locking, delete, and copy ("same recipe, new base").
+// Every lookup is scoped by the studio; another studio's trial is simply not found.
+
+/** The trial, in this studio, or a 404. */
+export async function findTrial(em: EntityManager, studio: Studio, trialId: string): Promise<Trial> {
+  if (!isUuid(trialId)) throw notFound("This trial");
+  const trial = await em.findOne(TrialSchema, { id: trialId, studio });
+  if (!trial) throw notFound("This trial");
+  return trial;
+}
+
+async function checkBase(em: EntityManager, studio: Studio, baseId: string | null | undefined): Promise<void> {
+  if (!baseId) return;
+  const base = await em.findOne(YarnBaseSchema, { id: baseId, studio });
+  if (!base) throw badRequest("Check “baseId”: choose a base from this studio's library.", { baseId: "Choose a base from this studio's library." });
+}
+
+/** The full trial as the API returns it, read fresh. */
+export async function getTrial(em: EntityManager, studio: Studio, trialId: string): Promise<TrialDto> {
+  const fresh = em.fork();
+  if (!isUuid(trialId)) throw notFound("This trial");
+  const trial = await fresh.findOne(TrialSchema, { id: trialId, studio: studio.id }, { populate: ["base", "copiedFrom"] });
+  if (!trial) throw notFound("This trial");
+  const [layers, author] = await Promise.all([
+    fresh.find(LayerSchema, { trial }, { orderBy: { position: "asc" } }),
+    fresh.findOneOrFail(UserSchema, { id: trial.author.id }),
+  ]);
+  const lib = await loadLibrary(fresh, studio.id, layers.flatMap((l) => l.dyes));
+  const source = trial.copiedFrom?.isInitialized() ? trial.copiedFrom.getEntity() : null;
+  return trialDto({
+    trial,
+    layers,
+    base: trial.base?.isInitialized() ? trial.base.getEntity() : null,
+    authorName: author.name,
+    lib,
+    shelfLifeDays: studio.stockShelfLifeDays,
+    sourceFibreG: source ? source.fibreWeightG : null,
+  });
+}
+
+export async function createTrial(em: EntityManager, studio: Studio, authorId: string, input: TrialInput): Promise<TrialDto> {
+  await checkBase(em, studio, input.baseId);
+  const trial = em.create(TrialSchema, {
+    studio,
+    author: authorId,
+    title: input.title,
+    base: input.baseId ?? null,
+    fibreWeightG: input.fibreWeightG,
+    status: input.status ?? "planned",
+    tags: normaliseTags(input.tags ?? []),
+    notes: input.notes ?? null,
+    notesText: notesText(input.notes),
+  });
+  await em.flush();
+  return getTrial(em, studio, trial.id);
+}
+
+/** Tags: trimmed, lower-case, each once. */
+function normaliseTags(tags: string[]): string[] {
+  return [...new Set(tags.map((t) => t.trim().toLowerCase()).filter(Boolean))];
+}
+
+export async function updateTrial(em: EntityManager, studio: Studio, trialId: string, patch: TrialPatch): Promise<TrialDto> {
+  const trial = await findTrial(em, studio, trialId);
+  // A stale version answers 409 (OptimisticLockError); the flush checks it again in the database.
+  await em.lock(trial, LockMode.OPTIMISTIC, patch.version);
+  if (patch.baseId !== undefined) {
+    await checkBase(em, studio, patch.baseId);
+    trial.base = patch.baseId ? em.getReference(YarnBaseSchema, patch.baseId, { wrapped: true }) : null;
+  }
+  if (patch.title !== undefined) trial.title = patch.title;
+  if (patch.fibreWeightG !== undefined) trial.fibreWeightG = patch.fibreWeightG;
+  if (patch.status !== undefined) trial.status = patch.status;
+  if (patch.tags !== undefined) trial.tags = normaliseTags(patch.tags);
+  if (patch.notes !== undefined) {
+    trial.notes = patch.notes;
+    trial.notesText = notesText(patch.notes);
+  }
+  await em.flush();
+  return getTrial(em, studio, trial.id);
+}
+
+export async function deleteTrial(em: EntityManager, studio: Studio, trialId: string): Promise<void> {
+  const trial = await findTrial(em, studio, trialId);
+  // Layers and timers go with it (database cascade).
+  await em.nativeDelete(TrialSchema, { id: trial.id, studio });
+}
+
+/**
+ * Copies a trial's recipe as the start of the next one: the layers' methods, dyes (at the same
+ * depth of shade), acid, heat, timing and setting; water follows the liquor ratio to the new fibre
+ * weight. Results (observations, rinse notes, bleeding) and notes stay with the original.
+ */
+export async function copyTrial(em: EntityManager, studio: Studio, authorId: string, trialId: string, input: CopyInput): Promise<TrialDto> {
+  const id = await em.transactional(async (tx) => {
+    const source = await findTrial(tx, studio, trialId);
+    await checkBase(tx, studio, input.baseId);
+    const layers = await tx.find(LayerSchema, { trial: source }, { orderBy: { position: "asc" } });
+    const fibreG = input.fibreWeightG ?? source.fibreWeightG;
+    const factor = fibreG / source.fibreWeightG;
+    const stockIds = [...new Set(layers.flatMap((l) => l.dyes.map((d) => d.stockId)).filter((s): s is string => !!s))];
+    const stocks = new Map((await tx.find(StockSolutionSchema, { id: { $in: stockIds }, studio })).map((s) => [s.id, s]));
+    const copy = tx.create(TrialSchema, {
+      studio,
+      author: authorId,
+      title: input.title ?? `${source.title} (copy)`.slice(0, 160),
+      base: input.baseId !== undefined ? input.baseId : (source.base?.id ?? null),
+      fibreWeightG: fibreG,
+      status: "planned",
+      tags: [...source.tags],
+      notes: null,
+      notesText: "",
+      copiedFrom: source,
+    });
+    layers.forEach((l, i) => tx.create(LayerSchema, copiedLayer(copy, l, i, fibreG, factor, stocks)));
+    await tx.flush();
+    return copy.id;
+  });
+  return getTrial(em, studio, id);
+}
+
+function copiedLayer(
+  trial: Trial,
+  l: Layer,
+  position: number,
+  fibreG: number,
+  factor: number,
+  stocks: Map<string, { concentrationPct: number; definition: "to-volume" | "in-water" }>,
+) {
+  return {
+    trial,
+    position,
+    method: l.method,
+    dyes: l.dyes.map((d) => ({
+      ...d,
+      entered: enteredFromDos(d.dosPct, d.entered.unit, fibreG, d.stockId ? (stocks.get(d.stockId) ?? null) : null),
+    })),
+    acid: { ...l.acid, amount: l.acid.amount != null ? l.acid.amount * factor : l.acid.amount, ph: null },
+    waterL: l.waterL != null ? l.waterL * factor : null,
+    temperatureC: l.temperatureC ?? null,
+    minutes: l.minutes ?? null,
+    setting: { ...l.setting },
+    rinseNote: "",
+    bled: null,
+    coverage: l.coverage ?? null,
+    gradient: l.gradient ? { sections: l.gradient.sections, depths: [...l.gradient.depths] } : null,
+    observations: "",
+  };
+}
