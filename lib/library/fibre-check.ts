@@ -48,11 +48,11 @@ export function fibreGroup(fibre: Fibre): FibreGroup {
 
 const pct = (n: number) => `${Math.round(n * 10) / 10} %`;
 const share = (parts: FibrePart[]) => parts.map((p) => `${pct(p.pct)} ${p.fibre}`).join(" and ");
-const classWords: Record<DyeClass, string> = {
-  acid: "acid dyes",
-  food: "food colouring (a blend of acid dyes)",
-  reactive: "fibre-reactive dyes",
-  other: "this dye",
+const doesNotDye: Record<DyeClass, string> = {
+  acid: "acid dyes do not dye",
+  food: "food colouring (a blend of acid dyes) does not dye",
+  reactive: "fibre-reactive dyes do not dye",
+  other: "this dye does not dye",
 };
 const groupWords: Record<FibreGroup, string> = {
   protein: "protein fibres",
@@ -94,8 +94,8 @@ export function fibreWarnings(fibres: FibrePart[], dyeClass: DyeClass, opts: { s
       kind: "wont-take",
       level: "warning",
       message: all
-        ? `This base will stay undyed: ${classWords[dyeClass]} do not dye ${groupWords[group]}.`
-        : `The ${share(parts)} will stay pale: ${classWords[dyeClass]} do not dye ${groupWords[group]}.`,
+        ? `This base will stay undyed: ${doesNotDye[dyeClass]} ${groupWords[group]}.`
+        : `The ${share(parts)} will stay pale: ${doesNotDye[dyeClass]} ${groupWords[group]}.`,
       fibres: parts.map((p) => p.fibre),
     });
   }
