@@ -1,6 +1,7 @@
 // npm run seed – loads the invented demo studio; safe to run again (finds what exists).
 import { MikroORM } from "@mikro-orm/postgresql";
 import config from "../mikro-orm.config";
+import { seedLibrary } from "./seed/library";
 import { seedStudio } from "./seed/studio";
 
 const orm = await MikroORM.init(config);
@@ -8,7 +9,8 @@ try {
   const em = orm.em.fork();
   const demo = await em.transactional(async (tx) => {
     const d = await seedStudio(tx);
-    return d;
+    const library = await seedLibrary(tx, d.studio);
+    return { ...d, library };
   });
   console.log(`Seeded ${demo.studio.name}.`);
 } finally {
