@@ -15,6 +15,10 @@ const schema = z.object({
   SMTP_URL: z.string().default("smtp://127.0.0.1:2525"),
   MAIL_FROM: z.string().default("Undertone <notebook@undertone.local>"),
   MAIL_FAKE_URL: z.string().url().default("http://127.0.0.1:2580"),
+  /** Notifications for one recipient within this many seconds leave as one mail. */
+  MAIL_BATCH_SECONDS: z.coerce.number().int().min(0).max(86_400).default(120),
+  /** POST /api/internal/outbox/flush: "on" or "off"; unset means on outside production. */
+  OUTBOX_FLUSH_ROUTE: z.enum(["on", "off"]).optional(),
 });
 
 export type Env = z.infer<typeof schema>;

@@ -25,6 +25,7 @@ export const permissions = {
   "comment.read": ["owner", "dyer", "guest"],
   "comment.write": ["owner", "dyer", "guest"],
   "comment.moderate": ["owner"],
+  "follow.use": ["owner", "dyer", "guest"],
   "activity.read": ["owner", "dyer", "guest"],
 } as const satisfies Record<string, readonly Role[]>;
 
