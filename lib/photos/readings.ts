@@ -1,0 +1,202 @@
+import "server-only";
+import sharp from "sharp";
+import type { EntityManager } from "@mikro-orm/postgresql";
+import {
+  calibrateCard,
+  CalibrationError,
+  cropPixels,
+  labToSrgb,
+  patchGrid,
+  readSwatch,
+  samplePatch,
+  UNCALIBRATED,
+  type Calibration,
+  type Lab,
+  type Point,
+  type RawImage,
+} from "@/colour";
+import {
+  PhotoSchema,
+  ReadingSchema,
+  ReferenceCardSchema,
+  type Photo,
+  type Reading,
+  type ReferenceCard,
+  type Studio,
+} from "@/entities";
+import { badRequest, notFound } from "@/lib/errors";
+import { getObject } from "@/lib/storage";
+import type { ReadingInput } from "@/lib/schemas/photo";
+import type { SessionUser } from "@/lib/auth/session";
+import { MAX_PIXELS } from "./process";
+
+/** Bumped whenever the reading method in colour/ changes what it reports. */
+export const READING_MODEL_VERSION = 1;
+
+export interface ReadingDto {
+  id: string;
+  photoId: string;
+  trialId: string;
+  layerId: string | null;
+  photoKind: Photo["kind"];
+  label: string;
+  lab: Lab;
+  hex: string;
+  inGamut: boolean;
+  palette: { lab: Lab; hex: string; share: number }[];
+  calibration: Reading["calibration"];
+  cardId: string | null;
+  cardVersion: number | null;
+  modelVersion: number;
+  region: Reading["region"];
+  createdAt: string;
+}
+
+const hexOf = (lab: Lab) => {
+  const { rgb, inGamut } = labToSrgb(lab);
+  return { hex: "#" + rgb.map((c) => Math.round(c).toString(16).padStart(2, "0")).join(""), inGamut };
+};
+
+export function readingDto(r: Reading, photoKind: Photo["kind"]): ReadingDto {
+  const lab = { L: r.L, a: r.a, b: r.b };
+  const { hex, inGamut } = hexOf(lab);
+  return {
+    id: r.id,
+    photoId: r.photo.id,
+    trialId: r.trial.id,
+    layerId: r.layer?.id ?? null,
+    photoKind,
+    label: r.label,
+    lab,
+    hex,
+    inGamut,
+    palette: r.palette.map((p) => ({ lab: { L: p.L, a: p.a, b: p.b }, hex: hexOf(p).hex, share: p.share })),
+    calibration: r.calibration ?? null,
+    cardId: r.card?.id ?? null,
+    cardVersion: r.cardVersion ?? null,
+    modelVersion: r.modelVersion,
+    region: r.region,
+    createdAt: r.createdAt.toISOString(),
+  };
+}
+
+async function loadMaster(photo: Photo): Promise<RawImage> {
+  if (photo.status !== "ready" || !photo.masterKey) throw badRequest("This photo is still being processed. Try again in a moment.");
+  const bytes = await getObject(photo.masterKey);
+  if (!bytes) throw notFound("This photo");
+  const { data, info } = await sharp(bytes, { limitInputPixels: MAX_PIXELS }).raw().toBuffer({ resolveWithObject: true });
+  return { data, width: info.width, height: info.height, channels: info.channels };
+}
+
+function calibrate(image: RawImage, card: ReferenceCard, corners: Point[]): Calibration {
+  const places = patchGrid(corners as [Point, Point, Point, Point], card.rows, card.cols);
+  const patches = places.map((place, i) => {
+    const s = samplePatch(image, place.rect);
+    const known = card.patches[i];
+    return { known: { L: known.L, a: known.a, b: known.b }, rgb: s.rgb, clippedFraction: s.clippedFraction, name: known.name };
+  });
+  try {
+    return calibrateCard(patches);
+  } catch (e) {
+    if (e instanceof CalibrationError || e instanceof RangeError) throw badRequest(e.message);
+    throw e;
+  }
+}
+
+function measure(image: RawImage, rect: Reading["region"], calibration: Calibration | null) {
+  const r = {
+    x: Math.round(rect.x),
+    y: Math.round(rect.y),
+    width: Math.round(Math.min(rect.width, image.width - rect.x)),
+    height: Math.round(Math.min(rect.height, image.height - rect.y)),
+  };
+  if (r.width < 4 || r.height < 4) throw badRequest("The swatch area lies outside the photo. Mark it again.");
+  try {
+    return readSwatch(cropPixels(image, r), image.channels, calibration ?? UNCALIBRATED);
+  } catch (e) {
+    if (e instanceof RangeError) throw badRequest(e.message);
+    throw e;
+  }
+}
+
+function calibrationSummary(c: Calibration | null): Reading["calibration"] {
+  return c
+    ? { model: c.model, looMeanDe00: c.looMeanDe00, looMaxDe00: c.looMaxDe00, quality: c.quality, reasons: c.reasons }
+    : null;
+}
+
+/** Reads one or more swatch areas of a photo, calibrated by the studio card marked in it. */
+export async function createReadings(
+  em: EntityManager,
+  studio: Studio,
+  user: SessionUser,
+  photoId: string,
+  input: ReadingInput,
+): Promise<ReadingDto[]> {
+  const photo = await em.findOne(PhotoSchema, { id: photoId, studio });
+  if (!photo) throw notFound("This photo");
+  const card = input.cardId ? await em.findOne(ReferenceCardSchema, { id: input.cardId, studio }) : null;
+  if (input.cardId && !card) throw notFound("This reference card");
+  if (card && !input.corners) throw badRequest("Mark the four corners of the card's patch area.", { corners: "Mark all four corners." });
+  const image = await loadMaster(photo);
+  const calibration = card && input.corners ? calibrate(image, card, input.corners) : null;
+  const readings = input.regions.map(({ label, rect }) => {
+    const s = measure(image, rect, calibration);
+    return em.create(ReadingSchema, {
+      studio,
+      trial: photo.trial,
+      layer: photo.layer ?? null,
+      photo,
+      card,
+      cardVersion: card?.version ?? null,
+      modelVersion: READING_MODEL_VERSION,
+      label,
+      corners: input.corners ?? null,
+      region: rect,
+      L: s.lab.L,
+      a: s.lab.a,
+      b: s.lab.b,
+      palette: s.palette.map((p) => ({ ...p.lab, share: p.share })),
+      calibration: calibrationSummary(calibration),
+      createdBy: user.id,
+    });
+  });
+  await em.flush();
+  return readings.map((r) => readingDto(r, photo.kind));
+}
+
+export async function listReadings(em: EntityManager, studio: Studio, trialId: string): Promise<ReadingDto[]> {
+  const list = await em.find(ReadingSchema, { studio, trial: trialId }, { populate: ["photo"], orderBy: { createdAt: "asc" } });
+  return list.map((r) => readingDto(r, r.photo.getEntity().kind));
+}
+
+export async function deleteReading(em: EntityManager, studio: Studio, readingId: string): Promise<void> {
+  const r = await em.findOne(ReadingSchema, { id: readingId, studio });
+  if (!r) throw notFound("This reading");
+  await em.removeAndFlush(r);
+}
+
+/** Re-measures every reading calibrated by a card after its values changed. Returns how many. */
+export async function recomputeCardReadings(em: EntityManager, card: ReferenceCard): Promise<number> {
+  const list = await em.find(ReadingSchema, { card, cardVersion: { $ne: card.version } }, { populate: ["photo"] });
+  const byPhoto = new Map<string, Reading[]>();
+  for (const r of list) byPhoto.set(r.photo.id, [...(byPhoto.get(r.photo.id) ?? []), r]);
+  for (const group of byPhoto.values()) {
+    const image = await loadMaster(group[0].photo.getEntity());
+    for (const r of group) {
+      const calibration = r.corners ? calibrate(image, card, r.corners) : null;
+      const s = measure(image, r.region, calibration);
+      em.assign(r, {
+        L: s.lab.L,
+        a: s.lab.a,
+        b: s.lab.b,
+        palette: s.palette.map((p) => ({ ...p.lab, share: p.share })),
+        calibration: calibrationSummary(calibration),
+        cardVersion: card.version,
+        modelVersion: READING_MODEL_VERSION,
+      });
+    }
+  }
+  await em.flush();
+  return list.length;
+}
