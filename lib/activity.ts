@@ -1,4 +1,5 @@
 import "server-only";
+import { randomUUID } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { type ActivityEvent, ActivityEventSchema, FollowSchema, NotificationSchema } from "@/entities/comment";
 import { MembershipSchema, type Studio } from "@/entities/studio";
@@ -39,6 +40,7 @@ export async function recordActivity(em: EntityManager, input: ActivityInput): P
   const studioId = idOf(input.studio);
   const actorId = input.actor ? idOf(input.actor) : null;
   const event = em.create(ActivityEventSchema, {
+    id: randomUUID(),
     studio: studioId,
     actor: actorId,
     kind: input.kind,

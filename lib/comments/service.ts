@@ -1,4 +1,5 @@
 import "server-only";
+import { randomUUID } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import {
   ActivityEventSchema,
@@ -105,6 +106,8 @@ export async function createComment(
     const names = await memberNames(tx, studio);
     const { doc, mentions } = checkBody(input.body, names);
     const comment = tx.create(CommentSchema, {
+      // The id is needed before the flush (activity, notification links); onCreate runs only at flush.
+      id: randomUUID(),
       studio,
       trial,
       layer: input.layerId ?? null,
