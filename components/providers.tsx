@@ -1,15 +1,21 @@
 "use client";
 
-import { QueryClientProvider } from "@tanstack/react-query";
 import { SessionProvider } from "next-auth/react";
 import { useState } from "react";
+import { OfflineQueryProvider } from "@/components/offline/offline-provider";
+import { registerTrialWrites } from "@/components/offline/trial-writes";
 import { makeQueryClient } from "@/components/query-client";
 
 export function Providers({ children }: { children: React.ReactNode }) {
-  const [client] = useState(makeQueryClient);
+  const [client] = useState(() => {
+    const c = makeQueryClient();
+    // Before the kept cache is restored, so restored changes find their functions.
+    registerTrialWrites(c);
+    return c;
+  });
   return (
     <SessionProvider>
-      <QueryClientProvider client={client}>{children}</QueryClientProvider>
+      <OfflineQueryProvider client={client}>{children}</OfflineQueryProvider>
     </SessionProvider>
   );
 }

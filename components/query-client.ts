@@ -4,7 +4,8 @@ import { QueryClient } from "@tanstack/react-query";
 export function makeQueryClient(): QueryClient {
   return new QueryClient({
     defaultOptions: {
-      queries: { staleTime: 30_000, retry: 1, refetchOnWindowFocus: true },
+      // gcTime is a day so what was read stays in the device's kept cache for offline use.
+      queries: { staleTime: 30_000, retry: 1, refetchOnWindowFocus: true, gcTime: 24 * 3600 * 1000 },
     },
   });
 }
