@@ -10,5 +10,6 @@ export interface NavItem {
 
 export const navItems: NavItem[] = [
   { path: "", label: "Home", icon: "home" },
+  { path: "/trials", label: "Trials", icon: "trials" },
   { path: "/members", label: "People", icon: "people" },
 ];
