@@ -20,12 +20,14 @@ export function differenceMatrix(): Float64Array {
   return d;
 }
 
-// Work buffers, reused by every call (the solver is synchronous, so sharing is safe).
+// Work buffers, reused by every call (the solver is synchronous, so sharing is safe). The Newton
+// matrix is kept compact: its diagonal, its constant −2 off-diagonals (from D) and its border
+// dρ ⊙ Tᵀ (symmetric); a dense copy is built only when the structured solve declines.
 const z = new Float64Array(N);
 const lambda = new Float64Array(3);
 const rho = new Float64Array(N);
-const dRho = new Float64Array(N);
-const tl = new Float64Array(N);
+const diag = new Float64Array(N);
+const border = new Float64Array(N * 3);
 const J = new Float64Array(SIZE * SIZE);
 const F = new Float64Array(SIZE);
 
@@ -63,29 +65,19 @@ export function lhtss(lin: Rgb, out: Reflectance = new Float64Array(N), options:
   z.fill(0);
   lambda.fill(0);
   for (let it = 0; it < maxIt; it++) {
-    // ρ, dρ/dz and Tᵀλ at the current point.
+    // F = [D z + dρ ⊙ Tᵀλ ; T ρ − rgb] and its Jacobian (Burns 2020, LHTSS listing).
+    let resid = 0;
     for (let i = 0; i < N; i++) {
       const t = Math.tanh(z[i]);
       rho[i] = (t + 1) / 2;
-      dRho[i] = (1 - t * t) / 2;
-      tl[i] = T[i] * lambda[0] + T[N + i] * lambda[1] + T[2 * N + i] * lambda[2];
-    }
-    // F = [D z + dρ ⊙ Tᵀλ ; T ρ − rgb] and its Jacobian J (Burns 2020, LHTSS listing).
-    J.fill(0);
-    let resid = 0;
-    for (let i = 0; i < N; i++) {
-      const t = 2 * rho[i] - 1;
+      const dRho = (1 - t * t) / 2;
+      const tl = T[i] * lambda[0] + T[N + i] * lambda[1] + T[2 * N + i] * lambda[2];
       const dz = (i > 0 ? z[i] - z[i - 1] : 0) + (i < N - 1 ? z[i] - z[i + 1] : 0);
-      F[i] = 2 * dz + dRho[i] * tl[i];
-      const row = i * SIZE;
-      J[row + i] = (i === 0 || i === N - 1 ? 2 : 4) - 2 * dRho[i] * t * tl[i];
-      if (i > 0) J[row + i - 1] = -2;
-      if (i < N - 1) J[row + i + 1] = -2;
-      for (let k = 0; k < 3; k++) {
-        const v = dRho[i] * T[k * N + i];
-        J[row + N + k] = v;
-        J[(N + k) * SIZE + i] = v;
-      }
+      F[i] = 2 * dz + dRho * tl;
+      diag[i] = (i === 0 || i === N - 1 ? 2 : 4) - 2 * dRho * t * tl;
+      border[3 * i] = dRho * T[i];
+      border[3 * i + 1] = dRho * T[N + i];
+      border[3 * i + 2] = dRho * T[2 * N + i];
       resid = Math.max(resid, Math.abs(F[i]));
     }
     for (let k = 0; k < 3; k++) {
@@ -99,11 +91,110 @@ export function lhtss(lin: Rgb, out: Reflectance = new Float64Array(N), options:
       out.set(rho);
       return out;
     }
-    solveInPlace(J, F); // F ← J⁻¹ F
+    if (it === 0) firstStep(F); // F ← J⁻¹ F
+    else if (!solveBordered(F)) solveInPlace(denseJacobian(), F);
     for (let i = 0; i < N; i++) z[i] -= F[i];
     for (let k = 0; k < 3; k++) lambda[k] -= F[N + k];
   }
   throw new Error(`LHTSS did not converge for linear RGB (${r}, ${g}, ${b}).`);
+}
+
+// Buffers of the structured solve.
+const piv = new Float64Array(N);
+const bB = new Float64Array(N * 3);
+const fB = new Float64Array(N);
+const sol = new Float64Array(SIZE);
+const S3 = new Float64Array(9);
+
+/**
+ * Solves the Newton system using its shape: a tridiagonal block (D plus a diagonal) bordered by
+ * three dense rows and columns. Tridiagonal elimination without pivoting, then the 3×3 Schur
+ * complement — O(36) instead of O(39³). Returns false (leaving J and F untouched) when a pivot is
+ * too small to trust, e.g. at the first step where the block is D itself and singular.
+ */
+function solveBordered(Fv: Float64Array): boolean {
+  const S = S3;
+  S.fill(0);
+  let g0 = Fv[N], g1 = Fv[N + 1], g2 = Fv[N + 2];
+  let c0 = 0, c1 = 0, c2 = 0; // fill carried into the border rows from the previous column
+  for (let i = 0; i < N; i++) {
+    let p = diag[i];
+    let f = Fv[i];
+    let b0 = border[3 * i], b1 = border[3 * i + 1], b2 = border[3 * i + 2];
+    if (i > 0) {
+      const m = -2 / piv[i - 1]; // sub-diagonal multiplier
+      p += 2 * m;
+      f -= m * fB[i - 1];
+      b0 -= m * bB[3 * i - 3];
+      b1 -= m * bB[3 * i - 2];
+      b2 -= m * bB[3 * i - 1];
+    }
+    if (!(Math.abs(p) > 1e-9)) return false;
+    piv[i] = p;
+    fB[i] = f;
+    bB[3 * i] = b0; bB[3 * i + 1] = b1; bB[3 * i + 2] = b2;
+    const up = i < N - 1 ? -2 : 0;
+    const m0 = (border[3 * i] + c0) / p, m1 = (border[3 * i + 1] + c1) / p, m2 = (border[3 * i + 2] + c2) / p;
+    S[0] -= m0 * b0; S[1] -= m0 * b1; S[2] -= m0 * b2;
+    S[3] -= m1 * b0; S[4] -= m1 * b1; S[5] -= m1 * b2;
+    S[6] -= m2 * b0; S[7] -= m2 * b1; S[8] -= m2 * b2;
+    g0 -= m0 * f; g1 -= m1 * f; g2 -= m2 * f;
+    c0 = -m0 * up; c1 = -m1 * up; c2 = -m2 * up;
+  }
+  // 3×3 Schur complement by the cofactor formula.
+  const A = S[4] * S[8] - S[5] * S[7], B = S[5] * S[6] - S[3] * S[8], C = S[3] * S[7] - S[4] * S[6];
+  const det = S[0] * A + S[1] * B + S[2] * C;
+  if (!(Math.abs(det) > 1e-300)) return false;
+  const y0 = (A * g0 + (S[2] * S[7] - S[1] * S[8]) * g1 + (S[1] * S[5] - S[2] * S[4]) * g2) / det;
+  const y1 = (B * g0 + (S[0] * S[8] - S[2] * S[6]) * g1 + (S[2] * S[3] - S[0] * S[5]) * g2) / det;
+  const y2 = (C * g0 + (S[1] * S[6] - S[0] * S[7]) * g1 + (S[0] * S[4] - S[1] * S[3]) * g2) / det;
+  sol[N] = y0; sol[N + 1] = y1; sol[N + 2] = y2;
+  for (let i = N - 1; i >= 0; i--) {
+    let v = fB[i] - bB[3 * i] * y0 - bB[3 * i + 1] * y1 - bB[3 * i + 2] * y2;
+    if (i < N - 1) v += 2 * sol[i + 1];
+    sol[i] = v / piv[i];
+  }
+  for (let i = 0; i < SIZE; i++) if (!Number.isFinite(sol[i])) return false;
+  Fv.set(sol);
+  return true;
+}
+
+// The first Newton step starts from z = 0, λ = 0 for every colour: the matrix is then always the same
+// (diagonal of D, border T/2) and singular in its D block, so solve it once for the three unit
+// right-hand sides that can occur (F = [0; T·½ − rgb]) and combine them.
+const FIRST = (() => {
+  const T = T_MATRIX;
+  for (let i = 0; i < N; i++) {
+    diag[i] = i === 0 || i === N - 1 ? 2 : 4;
+    for (let k = 0; k < 3; k++) border[3 * i + k] = 0.5 * T[k * N + i];
+  }
+  return [0, 1, 2].map((k) => {
+    const e = new Float64Array(SIZE);
+    e[N + k] = 1;
+    solveInPlace(denseJacobian(), e);
+    return e;
+  });
+})();
+
+function firstStep(Fv: Float64Array): void {
+  const f0 = Fv[N], f1 = Fv[N + 1], f2 = Fv[N + 2]; // Fv[0..N) is zero at z = 0, λ = 0
+  for (let i = 0; i < SIZE; i++) Fv[i] = FIRST[0][i] * f0 + FIRST[1][i] * f1 + FIRST[2][i] * f2;
+}
+
+/** The Newton matrix written out densely, for the pivoting fallback. */
+function denseJacobian(): Float64Array {
+  J.fill(0);
+  for (let i = 0; i < N; i++) {
+    const row = i * SIZE;
+    J[row + i] = diag[i];
+    if (i > 0) J[row + i - 1] = -2;
+    if (i < N - 1) J[row + i + 1] = -2;
+    for (let k = 0; k < 3; k++) {
+      J[row + N + k] = border[3 * i + k];
+      J[(N + k) * SIZE + i] = border[3 * i + k];
+    }
+  }
+  return J;
 }
 
 /** Gaussian elimination with partial pivoting on the SIZE×SIZE system A x = b; b is overwritten by x. */

@@ -23,8 +23,8 @@ export interface SpectralState {
   patches: SpectralPatch[];
 }
 
-/** A base is a measured colour, one reflectance curve, or the state left by an earlier prediction. */
-export type LayerBase = Lab | Reflectance | SpectralState;
+/** A base is a measured colour, one reflectance curve, or an earlier prediction (or its state). */
+export type LayerBase = Lab | Reflectance | SpectralState | Prediction;
 
 /** One layer to apply. */
 export interface Layer {
@@ -61,10 +61,15 @@ export interface Prediction {
 const NB = BANDS; // a plain local binding for the loops
 
 const isState = (b: LayerBase): b is SpectralState => (b as SpectralState).patches !== undefined;
+const isPrediction = (b: LayerBase): b is Prediction => (b as Prediction).state !== undefined;
 
 function toState(base: LayerBase, surface: SurfaceModel, notes: string[]): SpectralState {
   if (base instanceof Float64Array) return { patches: [{ reflectance: base, share: 1 }] };
   if (isState(base)) return base;
+  if (isPrediction(base)) return base.state;
+  if (!(Number.isFinite(base.L) && Number.isFinite(base.a) && Number.isFinite(base.b))) {
+    throw new RangeError("The base colour is not a CIELAB value (L*, a*, b* numbers).");
+  }
   const est = cachedLabToReflectance(base, floorFor(surface));
   if (est.note) notes.push(est.note);
   return { patches: [{ reflectance: est.reflectance, share: 1 }] };

@@ -185,3 +185,27 @@ export function fitDyeProfile(
   }
   return { ok: true, profile, notes: fit.notes, skipped: fit.skipped };
 }
+
+/** A dye profile as plain JSON (the spectrum as a number array), for storage. */
+export interface DyeProfileJson {
+  dyeId: string;
+  fibre?: string;
+  unitKs: number[];
+  surface: SurfaceModel;
+  quality: FitQuality;
+  calibratedUpTo?: number;
+}
+
+/** Profile → plain JSON for storage. */
+export function profileToJson(p: DyeProfile): DyeProfileJson {
+  return { ...p, unitKs: Array.from(p.unitKs) };
+}
+
+/** Plain JSON → profile; throws a plain message when the stored spectrum is not 36 non-negative numbers. */
+export function profileFromJson(j: DyeProfileJson): DyeProfile {
+  if (!Array.isArray(j.unitKs) || j.unitKs.length !== BANDS || !j.unitKs.every((v) => Number.isFinite(v) && v >= 0)) {
+    throw new RangeError(`The stored profile of ${j.dyeId} does not hold ${BANDS} non-negative K/S values.`);
+  }
+  if (j.surface !== "none" && j.surface !== "saunderson") throw new RangeError(`Unknown surface model "${j.surface}".`);
+  return { ...j, unitKs: Float64Array.from(j.unitKs) };
+}

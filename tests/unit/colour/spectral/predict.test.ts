@@ -121,6 +121,12 @@ describe("chaining layers", () => {
     expect(sumShares(b)).toBeCloseTo(1, 12);
     for (const e of b.palette) expect(e.lab.a).toBeGreaterThan(a.palette.find((x) => Math.abs(x.share - e.share) < 1e-12)!.lab.a);
   });
+  it("accepts an earlier prediction itself as the base, and refuses a base that is not a colour", () => {
+    const a = predictLayer(base, teal());
+    const b = predictLayer(a, { dyes: [{ profile: P.magenta, dosPct: 0.6 }] });
+    expect(deltaE00(b.lab, predictLayer(a.state, { dyes: [{ profile: P.magenta, dosPct: 0.6 }] }).lab)).toBe(0);
+    expect(() => predictLayer({ L: Number.NaN, a: 0, b: 0 }, teal())).toThrow(/not a CIELAB value/);
+  });
   it("accepts a bare reflectance curve as the base", () => {
     const p = predictLayer(SYNTHETIC_BASES.grey, { dyes: [{ profile: P.magenta, dosPct: 1 }] });
     expect(p.lab.a).toBeGreaterThan(20);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { Matrix } from "ml-matrix";
 import { deltaE00 } from "@/colour/difference";
-import { fitDyeProfile, fitDyeProfiles, type CalibrationDyeing } from "@/colour/spectral/profile";
+import { fitDyeProfile, fitDyeProfiles, profileFromJson, profileToJson, type CalibrationDyeing } from "@/colour/spectral/profile";
 import { nnls } from "@/colour/spectral/nnls";
 import { predictLayer } from "@/colour/spectral/predict";
 import { reflectanceToLab } from "@/colour/spectral/reflectance";
@@ -65,6 +65,15 @@ describe("fitting dye profiles", () => {
     expect(fit.quality.n).toBe(12);
     console.log(`fit to own dyeings: mean ΔE00 ${fit.quality.meanDE00.toFixed(2)}, max ${fit.quality.maxDE00.toFixed(2)}`);
     expect(fit.quality.meanDE00).toBeLessThan(2);
+  });
+  it("stores as plain JSON and reads back; refuses a damaged spectrum", () => {
+    const fit = fitDyeProfiles(syntheticCalibrationSet());
+    if (!fit.ok) throw new Error(fit.message);
+    const p = fit.profiles[0];
+    const back = profileFromJson(JSON.parse(JSON.stringify(profileToJson(p))));
+    expect(Array.from(back.unitKs)).toEqual(Array.from(p.unitKs));
+    expect(back.quality).toEqual(p.quality);
+    expect(() => profileFromJson({ ...profileToJson(p), unitKs: [1, 2] })).toThrow(/36 non-negative/);
   });
   it("learns two dyes jointly from mixes only", () => {
     const w = SYNTHETIC_BASES.white;
