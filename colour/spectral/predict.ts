@@ -47,6 +47,7 @@ export interface Layer {
 export interface Prediction {
   /** Overall appearance: CIELAB of the area mix of the patches' reflectances. */
   lab: Lab;
+  /** The area-mixed curve. Read-only: it may be shared with the state and the caches. */
   reflectance: Reflectance;
   /** Distinct areas (covered/uncovered, gradient sections) with shares summing to 1. */
   palette: PaletteEntry[];
