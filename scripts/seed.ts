@@ -1,6 +1,7 @@
 // npm run seed – loads the invented demo studio; safe to run again (finds what exists).
 import { MikroORM } from "@mikro-orm/postgresql";
 import config from "../mikro-orm.config";
+import { seedCards } from "./seed/cards";
 import { seedLibrary } from "./seed/library";
 import { seedStudio } from "./seed/studio";
 
@@ -10,6 +11,7 @@ try {
   const demo = await em.transactional(async (tx) => {
     const d = await seedStudio(tx);
     const library = await seedLibrary(tx, d.studio);
+    await seedCards(tx, d.studio);
     return { ...d, library };
   });
   console.log(`Seeded ${demo.studio.name}.`);
