@@ -4,6 +4,7 @@ import config from "../mikro-orm.config";
 import { seedCards } from "./seed/cards";
 import { seedLibrary } from "./seed/library";
 import { seedStudio } from "./seed/studio";
+import { seedTrials } from "./seed/trials";
 
 const orm = await MikroORM.init(config);
 try {
@@ -11,6 +12,7 @@ try {
   const demo = await em.transactional(async (tx) => {
     const d = await seedStudio(tx);
     const library = await seedLibrary(tx, d.studio);
+    await seedTrials(tx, d.studio, d.users, library);
     await seedCards(tx, d.studio);
     return { ...d, library };
   });
