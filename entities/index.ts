@@ -5,6 +5,7 @@ import { DyeSchema, StockSolutionSchema, YarnBaseSchema } from "./library";
 import { LayerSchema, StepTimerSchema, TrialSchema } from "./trial";
 import { PhotoSchema, ReadingSchema, ReferenceCardSchema } from "./photo";
 import { ActivityEventSchema, CommentSchema, FollowSchema, MailOutboxSchema, NotificationSchema } from "./comment";
+import { ColourwaySchema, DyeLotSchema, DyeProfileSchema, LayerPredictionSchema } from "./colourway";
 
 export const entities = [
   UserSchema,
@@ -26,6 +27,10 @@ export const entities = [
   FollowSchema,
   ActivityEventSchema,
   MailOutboxSchema,
+  DyeProfileSchema,
+  LayerPredictionSchema,
+  ColourwaySchema,
+  DyeLotSchema,
 ];
 
 export * from "./base";
@@ -35,3 +40,4 @@ export * from "./library";
 export * from "./trial";
 export * from "./photo";
 export * from "./comment";
+export * from "./colourway";

@@ -4,10 +4,12 @@ import { Migration20261202005358_studios } from "./Migration20261202005358_studi
 import { Migration20261202010701_trials } from "./Migration20261202010701_trials";
 import { Migration20261202011047_photos } from "./Migration20261202011047_photos";
 import { Migration20261202011154_comments } from "./Migration20261202011154_comments";
+import { Migration20261202013432_colourways } from "./Migration20261202013432_colourways";
 
 export const migrationsList: MigrationObject[] = [
   { name: "Migration20261202005358_studios", class: Migration20261202005358_studios },
   { name: "Migration20261202010701_trials", class: Migration20261202010701_trials },
   { name: "Migration20261202011047_photos", class: Migration20261202011047_photos },
   { name: "Migration20261202011154_comments", class: Migration20261202011154_comments },
+  { name: "Migration20261202013432_colourways", class: Migration20261202013432_colourways },
 ];
