@@ -20,6 +20,7 @@ vi.mock("next-auth", async (importOriginal) => {
 
 const TAG = "trials-seed";
 let owner: Person;
+const people = {} as { dyer: Person; guest: Person };
 let studioId: string;
 let trials: TrialDto[];
 
@@ -28,19 +29,18 @@ async function runSeed(): Promise<number> {
   return em.transactional(async (tx) => {
     const studio = (await tx.findOneOrFail(StudioSchema, { id: studioId })) as Studio;
     // One after another: a transaction holds one connection.
-    const find = (r: string) => tx.findOneOrFail(UserSchema, { email: { $like: `${r}-%@${TAG}.test` } });
-    const o = await find("owner");
-    const d = await find("dyer");
-    const g = await find("guest");
+    const find = (p: Person) => tx.findOneOrFail(UserSchema, { id: p.id });
+    const o = await find(owner);
+    const d = await find(people.dyer);
+    const g = await find(people.guest);
     const lib = await seedLibrary(tx, studio);
     return seedTrials(tx, studio, { owner: o as User, dyer: d as User, guest: g as User }, lib);
   });
 }
 
 beforeAll(async () => {
-  const [dyer, guest] = await Promise.all([makeUser(TAG, "dyer"), makeUser(TAG, "guest")]);
-  owner = await makeUser(TAG, "owner");
-  studioId = (await makeStudio("Seed Test Studio", [[owner, "owner"], [dyer, "dyer"], [guest, "guest"]])).id;
+  [people.dyer, people.guest, owner] = await Promise.all([makeUser(TAG, "dyer"), makeUser(TAG, "guest"), makeUser(TAG, "owner")]);
+  studioId = (await makeStudio("Seed Test Studio", [[owner, "owner"], [people.dyer, "dyer"], [people.guest, "guest"]])).id;
   expect(await runSeed()).toBeGreaterThanOrEqual(6);
   actAs(owner);
   const list = await call(trialsRoute.GET, "GET", { studioId });
