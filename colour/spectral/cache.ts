@@ -7,19 +7,36 @@ import { labToReflectance, type ReflectanceEstimate } from "./reflectance";
 
 const LAB_CACHE_SIZE = 1024;
 const labCache = new Map<string, ReflectanceEstimate>();
+const RECENT = 16;
+const recent: ({ L: number; a: number; b: number; floor: number; est: ReflectanceEstimate } | undefined)[] = new Array(RECENT);
+let recentNext = 0;
+
+function remember(lab: Lab, floor: number, est: ReflectanceEstimate): void {
+  recent[recentNext] = { L: lab.L, a: lab.a, b: lab.b, floor, est };
+  recentNext = (recentNext + 1) % RECENT;
+}
 
 /**
  * `labToReflectance` remembered for up to 1024 distinct Lab values (the oldest entry is dropped).
  * The returned curve is shared: treat it as read-only.
  */
 export function cachedLabToReflectance(lab: Lab, floor = 0): ReflectanceEstimate {
+  // A short ring of recent values compared as numbers first: no string building on the hot path.
+  for (let i = 0; i < RECENT; i++) {
+    const r = recent[i];
+    if (r && r.L === lab.L && r.a === lab.a && r.b === lab.b && r.floor === floor) return r.est;
+  }
   const key = `${lab.L}|${lab.a}|${lab.b}|${floor}`;
   const hit = labCache.get(key);
-  if (hit) return hit;
+  if (hit) {
+    remember(lab, floor, hit);
+    return hit;
+  }
   const est = labToReflectance(lab, { floor });
   Object.freeze(est);
   labCache.set(key, est);
   if (labCache.size > LAB_CACHE_SIZE) labCache.delete(labCache.keys().next().value as string);
+  remember(lab, floor, est);
   return est;
 }
 

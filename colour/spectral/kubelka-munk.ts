@@ -76,11 +76,12 @@ export function dyedReflectance(
   out: Reflectance = new Float64Array(substrateKs.length),
 ): Reflectance {
   const n = unitKs.length;
+  const saunderson = surface === "saunderson";
   for (let band = 0; band < substrateKs.length; band++) {
     let ks = substrateKs[band];
     for (let d = 0; d < n; d++) ks += conc[d] * unitKs[d][band];
-    const r = reflectanceFromKs(ks);
-    out[band] = surface === "saunderson" ? saundersonForward(r) : r;
+    const r = 1 / (1 + ks + Math.sqrt(ks * ks + 2 * ks)); // reflectanceFromKs, inlined for the hot loop
+    out[band] = saunderson ? saundersonForward(r) : r;
   }
   return out;
 }
