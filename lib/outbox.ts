@@ -1,4 +1,5 @@
 import "server-only";
+import { createHmac } from "node:crypto";
 import { LockMode } from "@mikro-orm/core";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { type MailOutbox, MailOutboxSchema } from "@/entities/comment";
@@ -160,6 +161,11 @@ export async function flushOutbox(opts: FlushOptions = {}): Promise<FlushResult>
     await tx.flush();
     return result;
   });
+}
+
+/** The bearer key for the flush route in production: an HMAC of the server's secret. */
+export function flushKey(): string {
+  return createHmac("sha256", env.NEXTAUTH_SECRET).update("undertone-outbox-flush").digest("hex");
 }
 
 const timer = globalThis as unknown as { __undertoneOutboxTimer?: ReturnType<typeof setInterval> };

@@ -11,5 +11,6 @@ export interface NavItem {
 export const navItems: NavItem[] = [
   { path: "", label: "Home", icon: "home" },
   { path: "/trials", label: "Trials", icon: "trials" },
+  { path: "/activity", label: "Activity", icon: "activity" },
   { path: "/members", label: "People", icon: "people" },
 ];

@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { NotificationBell } from "@/components/activity/notification-bell";
 import { Wordmark } from "./wordmark";
 
 export function TopBar({ studioName, userName }: { studioName?: string; userName: string }) {
@@ -20,15 +21,18 @@ export function TopBar({ studioName, userName }: { studioName?: string; userName
             </Link>
           )}
         </div>
-        <Link
-          href="/account"
-          className="flex min-h-11 items-center rounded-md px-2 text-sm text-ink-soft hover:bg-sheet"
-          aria-label={`Account of ${userName}`}
-        >
-          <span className="flex h-8 w-8 items-center justify-center rounded-full border border-rule-strong bg-sheet font-medium text-ink">
-            {userName.slice(0, 1).toUpperCase()}
-          </span>
-        </Link>
+        <div className="flex items-center gap-1">
+          <NotificationBell />
+          <Link
+            href="/account"
+            className="flex min-h-11 items-center rounded-md px-2 text-sm text-ink-soft hover:bg-sheet"
+            aria-label={`Account of ${userName}`}
+          >
+            <span className="flex h-8 w-8 items-center justify-center rounded-full border border-rule-strong bg-sheet font-medium text-ink">
+              {userName.slice(0, 1).toUpperCase()}
+            </span>
+          </Link>
+        </div>
       </div>
     </header>
   );

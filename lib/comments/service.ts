@@ -81,7 +81,7 @@ export async function listComments(
     ...(opts.photoId ? { photo: opts.photoId } : {}),
   };
   const [rows, names] = await Promise.all([
-    em.find(CommentSchema, where, { orderBy: { createdAt: "asc" }, limit: MAX_THREAD, populate: ["author"] }),
+    em.find(CommentSchema, where, { orderBy: { createdAt: "asc" }, limit: MAX_THREAD, populate: ["author", "layer"] }),
     memberNames(em, studio),
   ]);
   return rows.map((c) => commentDto(c, viewer, names, c.author.getEntity().name));

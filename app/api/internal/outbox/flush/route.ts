@@ -1,12 +1,18 @@
-// POST /api/internal/outbox/flush[?all=1] – sends due mail now (tests and development only; 404 elsewhere)
+// POST /api/internal/outbox/flush[?all=1] – sends queued mail now; for tests and development (404 otherwise)
 import { env } from "@/lib/env";
-import { flushOutbox } from "@/lib/outbox";
 import { toErrorResponse } from "@/lib/errors";
+import { flushOutbox, flushKey } from "@/lib/outbox";
 
-const enabled = () => (env.OUTBOX_FLUSH_ROUTE ? env.OUTBOX_FLUSH_ROUTE === "on" : env.NODE_ENV !== "production");
+// Open outside production. In production only with OUTBOX_FLUSH_ROUTE=on, or for a caller that
+// proves it holds the server's secret (the browser tests do: they share NEXTAUTH_SECRET).
+function allowed(req: Request): boolean {
+  if (env.OUTBOX_FLUSH_ROUTE) return env.OUTBOX_FLUSH_ROUTE === "on";
+  if (env.NODE_ENV !== "production") return true;
+  return req.headers.get("authorization") === `Bearer ${flushKey()}`;
+}
 
 export async function POST(req: Request): Promise<Response> {
-  if (!enabled()) return Response.json({ error: "Not found." }, { status: 404 });
+  if (!allowed(req)) return Response.json({ error: "Not found." }, { status: 404 });
   try {
     // ?all=1 treats everything queued as due, so a test need not wait for the batch window.
     const all = new URL(req.url).searchParams.get("all") === "1";
