@@ -65,7 +65,10 @@ const isState = (b: LayerBase): b is SpectralState => (b as SpectralState).patch
 const isPrediction = (b: LayerBase): b is Prediction => (b as Prediction).state !== undefined;
 
 function toState(base: LayerBase, surface: SurfaceModel, notes: string[]): SpectralState {
-  if (base instanceof Float64Array) return { patches: [{ reflectance: base, share: 1 }] };
+  if (base instanceof Float64Array) {
+    if (base.length !== NB) throw new RangeError(`A reflectance curve has ${NB} bands (380–730 nm); this one has ${base.length}.`);
+    return { patches: [{ reflectance: base, share: 1 }] };
+  }
   if (isState(base)) return base;
   if (isPrediction(base)) return base.state;
   if (!(Number.isFinite(base.L) && Number.isFinite(base.a) && Number.isFinite(base.b))) {

@@ -126,6 +126,7 @@ describe("chaining layers", () => {
     const b = predictLayer(a, { dyes: [{ profile: P.magenta, dosPct: 0.6 }] });
     expect(deltaE00(b.lab, predictLayer(a.state, { dyes: [{ profile: P.magenta, dosPct: 0.6 }] }).lab)).toBe(0);
     expect(() => predictLayer({ L: Number.NaN, a: 0, b: 0 }, teal())).toThrow(/not a CIELAB value/);
+    expect(() => predictLayer(new Float64Array(31), teal())).toThrow(/36 bands/);
   });
   it("accepts a bare reflectance curve as the base", () => {
     const p = predictLayer(SYNTHETIC_BASES.grey, { dyes: [{ profile: P.magenta, dosPct: 1 }] });
