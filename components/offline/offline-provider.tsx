@@ -43,7 +43,9 @@ export function OfflineQueryProvider({ client, children }: { client: QueryClient
           shouldDehydrateQuery: (q) => q.state.status === "success",
         },
       }}
-      onSuccess={() => client.resumePausedMutations()}
+      // The kept cache shows at once; once the waiting changes are sent, a reload still asks the
+      // server for what others changed meanwhile (offline, that waits for the connection).
+      onSuccess={() => client.resumePausedMutations().then(() => client.invalidateQueries())}
     >
       <OwnerGuard client={client} />
       {children}

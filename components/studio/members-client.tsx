@@ -47,7 +47,7 @@ export function MembersClient() {
                 <p className="font-medium">
                   {m.name} {m.userId === userId && <span className="text-sm font-normal text-ink-faint">(you)</span>}
                 </p>
-                <p className="truncate text-sm text-ink-soft">{m.email}</p>
+                <p className="text-sm text-ink-soft wrap-anywhere">{m.email}</p>
               </div>
               {manage ? (
                 <div className="flex items-end gap-2">
@@ -130,7 +130,7 @@ function Invitations({ studioId }: { studioId: string }) {
             {list.data.map((i) => (
               <li key={i.id} className="flex items-center justify-between gap-3 py-2">
                 <div className="min-w-0">
-                  <p className="truncate">{i.email}</p>
+                  <p className="wrap-anywhere">{i.email}</p>
                   <p className="text-sm text-ink-soft">
                     {i.role} · until {new Date(i.expiresAt).toLocaleDateString()}
                   </p>

@@ -14,7 +14,7 @@ export default async function CheckMailPage({ searchParams }: { searchParams: Pr
         device; it works once, for 24 hours.
       </p>
       <p className="mt-4">
-        <Link href="/signin" className="text-accent underline underline-offset-4">
+        <Link href="/signin" className="inline-flex min-h-11 items-center text-accent underline underline-offset-4">
           Use a different address
         </Link>
       </p>
