@@ -2,6 +2,7 @@
 import { MikroORM } from "@mikro-orm/postgresql";
 import config from "../mikro-orm.config";
 import { seedCards } from "./seed/cards";
+import { seedComments } from "./seed/comments";
 import { seedLibrary } from "./seed/library";
 import { seedStudio } from "./seed/studio";
 import { seedTrials } from "./seed/trials";
@@ -14,6 +15,7 @@ try {
     const library = await seedLibrary(tx, d.studio);
     await seedTrials(tx, d.studio, d.users, library);
     await seedCards(tx, d.studio);
+    await seedComments(tx, d.studio, d.users);
     return { ...d, library };
   });
   console.log(`Seeded ${demo.studio.name}.`);

@@ -52,8 +52,8 @@ export function CommentItem({ comment: c, highlighted, showLayer, onReply, onSav
         <span className="font-medium text-ink">{c.author.name}</span>
         <TimeAgo iso={c.createdAt} className="text-ink-faint" />
         {c.editedAt && <span className="text-ink-faint">· edited</span>}
-        {showLayer && c.layerPosition !== null && (
-          <span className="rounded border border-rule px-1.5 text-xs text-ink-soft">on layer {c.layerPosition}</span>
+        {showLayer && c.layerNumber !== null && (
+          <span className="rounded border border-rule px-1.5 text-xs text-ink-soft">on layer {c.layerNumber}</span>
         )}
         {showLayer && c.photoId && <span className="rounded border border-rule px-1.5 text-xs text-ink-soft">on a photo</span>}
       </div>

@@ -9,7 +9,7 @@ export interface CommentDto {
   id: string;
   trialId: string;
   layerId: string | null;
-  layerPosition: number | null;
+  layerNumber: number | null;
   photoId: string | null;
   author: { id: string; name: string };
   html: string;

@@ -12,8 +12,8 @@ export interface CommentDto {
   id: string;
   trialId: string;
   layerId: string | null;
-  /** The layer's place in the trial (1, 2…), for "on layer 2". */
-  layerPosition: number | null;
+  /** The layer's number in the trial, counting from 1 (positions count from 0), for "on layer 2". */
+  layerNumber: number | null;
   photoId: string | null;
   author: { id: string; name: string };
   /** Sanitised HTML, safe to insert into the page. */
@@ -47,7 +47,7 @@ export function commentDto(c: Comment, viewer: Viewer, names: Map<string, string
     id: c.id,
     trialId: c.trial.id,
     layerId: c.layer?.id ?? null,
-    layerPosition: c.layer?.isInitialized() ? c.layer.getEntity().position : null,
+    layerNumber: c.layer?.isInitialized() ? c.layer.getEntity().position + 1 : null,
     photoId: c.photo?.id ?? null,
     author: { id: c.author.id, name: authorName },
     html: removed ? "" : renderCommentHtml(c.body, names),

@@ -172,9 +172,9 @@ describe("studio boundaries", () => {
     const ok = await post({ body: doc(text("on layer 1")), layerId: trial.layerIds[0] });
     expect(ok.status).toBe(201);
     expect(ok.json.layerId).toBe(trial.layerIds[0]);
-    expect(ok.json.layerPosition).toBe(1);
+    expect(ok.json.layerNumber).toBe(1);
     const all = await list();
-    expect(all.json.find((c: { id: string }) => c.id === ok.json.id).layerPosition).toBe(1);
+    expect(all.json.find((c: { id: string }) => c.id === ok.json.id).layerNumber).toBe(1);
     // ?layerId= keeps only that layer's thread.
     const res = await commentsRoute.GET(new Request(`http://127.0.0.1/x?layerId=${trial.layerIds[0]}`), { params: Promise.resolve(tp()) });
     expect((await res.json()).map((c: { id: string }) => c.id)).toEqual([ok.json.id]);

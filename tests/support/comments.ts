@@ -7,7 +7,7 @@ import type { Person } from "./fixtures";
 export async function makeTrial(studioId: string, author: Person, title: string, layers = 0): Promise<{ id: string; layerIds: string[] }> {
   const em = await getEm();
   const trial = em.create(TrialSchema, { studio: studioId, author: author.id, title, fibreWeightG: 100 });
-  const ls = Array.from({ length: layers }, (_, i) => em.create(LayerSchema, { trial, position: i + 1, method: "immersion" }));
+  const ls = Array.from({ length: layers }, (_, i) => em.create(LayerSchema, { trial, position: i, method: "immersion" }));
   await em.flush();
   return { id: trial.id, layerIds: ls.map((l) => l.id) };
 }
