@@ -11,3 +11,4 @@ export * from "./spectral";
 export * from "./calibration";
 export * from "./swatch";
 export * from "./synthetic";
+export * from "./plan";

@@ -1,6 +1,7 @@
-// POST /api/studios/:studioId/photos/:photoId/readings – measure swatch areas, calibrated by the card marked in the photo (owner, dyer)
+// POST /api/studios/:studioId/photos/:photoId/readings – measure swatch areas, calibrated by the card marked in the photo; refits profiles (owner, dyer)
 import { isUuid, readJson, withStudio } from "@/lib/auth/with-studio";
 import { notFound } from "@/lib/errors";
+import { refitProfiles } from "@/lib/learning/profiles";
 import { createReadings } from "@/lib/photos/readings";
 import { readingInput } from "@/lib/schemas/photo";
 
@@ -8,7 +9,10 @@ export const POST = withStudio<{ studioId: string; photoId: string }>(
   async ({ req, em, studio, user, params }) => {
     if (!isUuid(params.photoId)) throw notFound("This photo");
     const input = readingInput.parse(await readJson(req));
-    return Response.json(await createReadings(em, studio, user, params.photoId, input), { status: 201 });
+    const readings = await createReadings(em, studio, user, params.photoId, input);
+    // A measured layer is a new dyeing to learn from: the studio's profiles are fitted again.
+    if (readings.some((r) => r.layerId)) await refitProfiles(em, studio);
+    return Response.json(readings, { status: 201 });
   },
   { can: "photo.upload" },
 );
