@@ -11,6 +11,7 @@ export interface NavItem {
 export const navItems: NavItem[] = [
   { path: "", label: "Home", icon: "home" },
   { path: "/trials", label: "Trials", icon: "trials" },
+  { path: "/library", label: "Library", icon: "library" },
   { path: "/activity", label: "Activity", icon: "activity" },
   { path: "/members", label: "People", icon: "people" },
 ];
