@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useRef, useState } from "react";
+import { useEffect, useRef, useState, useSyncExternalStore } from "react";
 import { useAccount } from "@/components/account/use-account";
 import { useCan, useStudio } from "@/components/studio/studio-context";
 import { Button, buttonClass } from "@/components/ui/button";
@@ -22,6 +22,18 @@ const SORTS = [
   { value: "title:asc", label: "Title A–Z" },
   { value: "title:desc", label: "Title Z–A" },
 ];
+
+const noop = () => () => {};
+
+export function TrialListSkeleton() {
+  return (
+    <div className="space-y-4" aria-busy="true">
+      <h1 className="text-3xl">Trials</h1>
+      <div className="min-h-12 rounded-md border border-rule bg-sheet" />
+      <p className="text-ink-soft">Loading the trials…</p>
+    </div>
+  );
+}
 
 export function TrialListClient() {
   const { studioId } = useStudio();
@@ -61,15 +73,19 @@ export function TrialListClient() {
   const filtered = activeFilterCount(params) > 0 || !!params.q;
   const sortValue = `${params.sort ?? "updated"}:${params.dir ?? (params.sort === "title" ? "asc" : "desc")}`;
   const href = (id: string) => `/s/${studioId}/trials/${id}`;
+  // Lists come from the (possibly restored, offline) query cache, which the server never sees:
+  // render them only once hydrated, so server and client HTML agree.
+  const hydrated = useSyncExternalStore(noop, () => true, () => false);
+  if (!hydrated) return <TrialListSkeleton />;
 
   return (
     <div className="space-y-4">
       <header className="flex items-end justify-between gap-3">
         <h1 className="text-3xl">Trials</h1>
         {canEdit && (
-          <Button className="hidden md:inline-flex" onClick={() => setNewOpen(true)}>
-            New trial
-          </Button>
+          <div className="hidden md:block">
+            <Button onClick={() => setNewOpen(true)}>New trial</Button>
+          </div>
         )}
       </header>
 
@@ -80,7 +96,7 @@ export function TrialListClient() {
             type="search"
             value={q}
             onChange={(e) => setQ(e.target.value)}
-            placeholder="Search titles, notes, dyes, bases"
+            placeholder="Search trials and dyes"
             className="block min-h-12 w-full rounded-md border border-rule-strong bg-sheet px-3 text-base text-ink placeholder:text-ink-faint focus:border-accent focus:outline-none"
           />
         </label>

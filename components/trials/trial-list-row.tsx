@@ -95,7 +95,7 @@ export function TrialTableRow({ t, href, unitSystem }: { t: TrialSummaryDto; hre
         <p>{t.base?.name ?? <span className="text-ink-faint">No base</span>}</p>
         <p className="text-ink-soft">{fibreText(t.fibreWeightG, unitSystem)}</p>
       </td>
-      <td className="py-3 pr-3 text-sm text-ink-soft">{t.author.name}</td>
+      <td className="py-3 pr-3 text-sm whitespace-nowrap text-ink-soft">{t.author.name}</td>
       <td className="tabular py-3 pr-3 text-sm whitespace-nowrap text-ink-soft">{formatDay(t.updatedAt)}</td>
       <td className="py-3 pr-4">
         <StatusMark status={t.status} />

@@ -1,18 +1,18 @@
 "use client";
 
-import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { usePathname, useSearchParams } from "next/navigation";
 import { useCallback, useMemo } from "react";
 import { type TrialListParams, searchString } from "./use-trials";
 
 // The list's search, filters, sort and page live in the URL, so a reload, the back button and a
-// shared link all show the same list.
+// shared link all show the same list. The URL is changed with history.replaceState, which Next's
+// router picks up for useSearchParams without asking the server for the page again.
 
 export const FILTER_KEYS = ["baseId", "dyeId", "method", "tag", "authorId", "status", "from", "to"] as const;
 const KEYS = ["q", ...FILTER_KEYS, "sort", "dir", "page", "pageSize"] as const;
 
 export function useTrialListParams(): [TrialListParams, (patch: TrialListParams) => void] {
   const sp = useSearchParams();
-  const router = useRouter();
   const pathname = usePathname();
   const params = useMemo(() => {
     const out: TrialListParams = {};
@@ -28,9 +28,9 @@ export function useTrialListParams(): [TrialListParams, (patch: TrialListParams)
       // Any change but the page itself starts again from page 1.
       if (!("page" in patch)) delete next.page;
       const qs = searchString(next);
-      router.replace(qs ? `${pathname}?${qs}` : pathname, { scroll: false });
+      window.history.replaceState(null, "", qs ? `${pathname}?${qs}` : pathname);
     },
-    [params, pathname, router],
+    [params, pathname],
   );
   return [params, set];
 }

@@ -1,13 +1,13 @@
 import type { Metadata } from "next";
 import { Suspense } from "react";
-import { TrialListClient } from "@/components/trials/trial-list-client";
+import { TrialListClient, TrialListSkeleton } from "@/components/trials/trial-list-client";
 
 export const metadata: Metadata = { title: "Trials" };
 
 // The list reads its search and filters from the URL, which needs a Suspense boundary.
 export default function TrialsPage() {
   return (
-    <Suspense fallback={<p className="text-ink-soft">Loading the trials…</p>}>
+    <Suspense fallback={<TrialListSkeleton />}>
       <TrialListClient />
     </Suspense>
   );
