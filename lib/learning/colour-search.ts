@@ -1,0 +1,77 @@
+import "server-only";
+import type { EntityManager } from "@mikro-orm/postgresql";
+import { deltaE00, hexToLab, type Lab } from "@/colour";
+import { ColourwaySchema, type Studio } from "@/entities";
+import { de00LowerBound } from "./colour-bound";
+
+export interface ColourMatch {
+  kind: "reading" | "colourway";
+  id: string;
+  trialId: string;
+  title: string;
+  lab: Lab;
+  de00: number;
+}
+
+interface Row {
+  id: string;
+  trial_id: string;
+  title: string;
+  l: number;
+  a: number;
+  b: number;
+}
+
+/**
+ * The studio's readings nearest a colour in ΔE00, exactly as a full scan would rank them: a box
+ * around the colour is read through the (studio, L*, a*, b*) index and widened until the k-th best
+ * difference is below what any colour outside the box could reach (see colour-bound.ts).
+ */
+export async function nearestReadings(em: EntityManager, studioId: string, target: Lab, k: number): Promise<ColourMatch[]> {
+  const c1 = Math.hypot(target.a, target.b);
+  const conn = em.getConnection();
+  for (let r = 8; ; r *= 2) {
+    const rows = await conn.execute<Row[]>(
+      `select r.id, r.trial_id, t.title, r.l, r.a, r.b from readings r join trials t on t.id = r.trial_id
+       where r.studio_id = ? and r.l between ? and ? and r.a between ? and ? and r.b between ? and ?`,
+      [studioId, target.L - r, target.L + r, target.a - r, target.a + r, target.b - r, target.b + r],
+    );
+    const scored = rows
+      .map((x) => ({ x, d: deltaE00(target, { L: x.l, a: x.a, b: x.b }) }))
+      .sort((p, q) => p.d - q.d || (p.x.id < q.x.id ? -1 : 1))
+      .slice(0, k);
+    const everything = r > 400; // the box then holds every possible CIELAB colour
+    if (everything || (scored.length === k && scored[k - 1].d < de00LowerBound(r, c1))) {
+      return scored.map(({ x, d }) => ({
+        kind: "reading",
+        id: x.id,
+        trialId: x.trial_id,
+        title: x.title,
+        lab: { L: x.l, a: x.a, b: x.b },
+        de00: d,
+      }));
+    }
+  }
+}
+
+/** Colourways nearest a colour (a studio has few: compared one by one). */
+export async function nearestColourways(em: EntityManager, studio: Studio, target: Lab, k: number): Promise<ColourMatch[]> {
+  const list = await em.find(ColourwaySchema, { studio, status: { $ne: "retired" } });
+  return list
+    .map((c) => {
+      const lab = { L: c.targetL, a: c.targetA, b: c.targetB };
+      return { kind: "colourway" as const, id: c.id, trialId: c.sourceTrial.id, title: c.name, lab, de00: deltaE00(target, lab) };
+    })
+    .sort((p, q) => p.de00 - q.de00)
+    .slice(0, k);
+}
+
+export async function searchByColour(
+  em: EntityManager,
+  studio: Studio,
+  q: { L?: number; a?: number; b?: number; hex?: string; limit: number },
+) {
+  const target: Lab = q.hex ? hexToLab(q.hex.startsWith("#") ? q.hex : `#${q.hex}`) : { L: q.L!, a: q.a!, b: q.b! };
+  const [readings, colourways] = [await nearestReadings(em, studio.id, target, q.limit), await nearestColourways(em, studio, target, q.limit)];
+  return { target, readings, colourways };
+}
