@@ -58,3 +58,24 @@ test("a sign-in link works only once", async ({ page }) => {
   await expect(page).toHaveURL(/\/signin\?error=Verification/);
   await expect(page.getByRole("alert").filter({ hasText: "expired or was used already" })).toBeVisible();
 });
+
+test("a crafted next address cannot send you off the site after sign-in", async ({ page }) => {
+  const a = account("dyer");
+  // Browsers read "/\host" as "//host", another site.
+  await page.goto(`/signin?next=${encodeURIComponent("/\\elsewhere.invalid/page")}`);
+  await page.getByLabel("E-mail").fill(a.email);
+  await page.getByLabel("Password").fill(a.password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expectStudioHome(page, a);
+});
+
+test("the next address brings you back where you were going", async ({ page }) => {
+  const a = account("guest");
+  await page.goto("/account");
+  await expect(page).toHaveURL(/\/signin\?next=%2Faccount$/);
+  await page.getByLabel("E-mail").fill(a.email);
+  await page.getByLabel("Password").fill(a.password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page).toHaveURL(/\/account$/);
+  await expect(page.getByRole("heading", { name: a.name })).toBeVisible();
+});

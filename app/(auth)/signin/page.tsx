@@ -13,7 +13,19 @@ const ERRORS: Record<string, string> = {
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<{ next?: string; error?: string }> }) {
   const { next, error } = await searchParams;
-  const safeNext = next?.startsWith("/") && !next.startsWith("//") ? next : "/";
+  const safeNext = sameOriginPath(next);
   if (await getSessionUser()) redirect(safeNext);
   return <SignInClient next={safeNext} error={error ? (ERRORS[error] ?? "Sign-in did not work. Try again.") : undefined} />;
+}
+
+/** `next` when it stays on this site, else "/". Parsed as a URL: browsers read "/\\host" as "//host". */
+function sameOriginPath(next: string | undefined): string {
+  if (!next?.startsWith("/")) return "/";
+  const base = "http://undertone.invalid";
+  try {
+    const u = new URL(next, base);
+    return u.origin === base ? u.pathname + u.search + u.hash : "/";
+  } catch {
+    return "/";
+  }
 }
