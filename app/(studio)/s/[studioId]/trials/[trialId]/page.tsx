@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { CommentThread } from "@/components/comments/comment-thread";
+import { TrialComparison } from "@/components/learning/trial-comparison";
 import { TrialPhotosSection } from "@/components/photos/trial-photos-section";
 import { TrialClient } from "@/components/trial/trial-client";
 
@@ -11,6 +12,7 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
     <>
       <TrialClient trialId={trialId} />
       <TrialPhotosSection trialId={trialId} />
+      <TrialComparison trialId={trialId} />
       <CommentThread trialId={trialId} />
     </>
   );
