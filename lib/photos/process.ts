@@ -1,9 +1,9 @@
 import "server-only";
-import sharp, { type Metadata } from "sharp";
+import sharp, { type Metadata, type OutputInfo } from "sharp";
 import { badRequest } from "@/lib/errors";
 
-// Checks an uploaded photo by its bytes and writes the stored variants. sharp drops EXIF (GPS
-// included) unless asked to keep it, and `rotate()` applies the EXIF orientation first.
+// Checks an uploaded photo by its bytes and writes the stored variants. The image is decoded once
+// with its EXIF orientation applied; raw pixels carry no metadata, so no variant keeps EXIF or GPS.
 
 /** Largest image we decode: a 50 MP phone photo; larger is refused as a possible pixel bomb. */
 export const MAX_PIXELS = 50_000_000;
@@ -32,14 +32,22 @@ export async function makeVariants(input: Buffer): Promise<Variants> {
   if (meta.width * meta.height > MAX_PIXELS) {
     throw badRequest(`This image has ${Math.round((meta.width * meta.height) / 1e6)} megapixels; at most 50 are accepted.`);
   }
-  const source = () => sharp(input, { limitInputPixels: MAX_PIXELS, failOn: "truncated" }).rotate();
+  let decoded: { data: Buffer; info: OutputInfo };
   try {
-    // The master keeps full resolution and chroma (4:4:4) so readings lose next to nothing.
-    const master = await source().jpeg({ quality: 95, chromaSubsampling: "4:4:4" }).toBuffer({ resolveWithObject: true });
-    const web = await source().resize({ width: 1600, height: 1600, fit: "inside", withoutEnlargement: true }).webp({ quality: 82 }).toBuffer();
-    const thumb = await source().resize({ width: 320, height: 320, fit: "cover" }).webp({ quality: 75 }).toBuffer();
-    return { master: master.data, web, thumb, width: master.info.width, height: master.info.height, originalType };
+    decoded = await sharp(input, { limitInputPixels: MAX_PIXELS, failOn: "truncated" })
+      .rotate()
+      .raw()
+      .toBuffer({ resolveWithObject: true });
   } catch {
     throw badRequest("This photo is damaged or cut short (the upload may have stopped). Upload it again.");
   }
+  const { data, info } = decoded;
+  const raw = () => sharp(data, { raw: { width: info.width, height: info.height, channels: info.channels } });
+  // The master keeps full resolution and chroma (4:4:4) so readings lose next to nothing.
+  const [master, web, thumb] = await Promise.all([
+    raw().jpeg({ quality: 95, chromaSubsampling: "4:4:4" }).toBuffer(),
+    raw().resize({ width: 1600, height: 1600, fit: "inside", withoutEnlargement: true }).webp({ quality: 82 }).toBuffer(),
+    raw().resize({ width: 320, height: 320, fit: "cover" }).webp({ quality: 75 }).toBuffer(),
+  ]);
+  return { master, web, thumb, width: info.width, height: info.height, originalType };
 }

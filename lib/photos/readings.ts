@@ -1,20 +1,6 @@
 import "server-only";
-import sharp from "sharp";
 import type { EntityManager } from "@mikro-orm/postgresql";
-import {
-  calibrateCard,
-  CalibrationError,
-  cropPixels,
-  labToSrgb,
-  patchGrid,
-  readSwatch,
-  samplePatch,
-  UNCALIBRATED,
-  type Calibration,
-  type Lab,
-  type Point,
-  type RawImage,
-} from "@/colour";
+import { labToSrgb, type Lab, type RawImage } from "@/colour";
 import {
   PhotoSchema,
   ReadingSchema,
@@ -28,7 +14,7 @@ import { badRequest, notFound } from "@/lib/errors";
 import { getObject } from "@/lib/storage";
 import type { ReadingInput } from "@/lib/schemas/photo";
 import type { SessionUser } from "@/lib/auth/session";
-import { MAX_PIXELS } from "./process";
+import { calibrate, calibrationSummary, decodeRaw, measure } from "./measure";
 
 /** Bumped whenever the reading method in colour/ changes what it reports. */
 export const READING_MODEL_VERSION = 1;
@@ -84,45 +70,7 @@ async function loadMaster(photo: Photo): Promise<RawImage> {
   if (photo.status !== "ready" || !photo.masterKey) throw badRequest("This photo is still being processed. Try again in a moment.");
   const bytes = await getObject(photo.masterKey);
   if (!bytes) throw notFound("This photo");
-  const { data, info } = await sharp(bytes, { limitInputPixels: MAX_PIXELS }).raw().toBuffer({ resolveWithObject: true });
-  return { data, width: info.width, height: info.height, channels: info.channels };
-}
-
-function calibrate(image: RawImage, card: ReferenceCard, corners: Point[]): Calibration {
-  const places = patchGrid(corners as [Point, Point, Point, Point], card.rows, card.cols);
-  const patches = places.map((place, i) => {
-    const s = samplePatch(image, place.rect);
-    const known = card.patches[i];
-    return { known: { L: known.L, a: known.a, b: known.b }, rgb: s.rgb, clippedFraction: s.clippedFraction, name: known.name };
-  });
-  try {
-    return calibrateCard(patches);
-  } catch (e) {
-    if (e instanceof CalibrationError || e instanceof RangeError) throw badRequest(e.message);
-    throw e;
-  }
-}
-
-function measure(image: RawImage, rect: Reading["region"], calibration: Calibration | null) {
-  const r = {
-    x: Math.round(rect.x),
-    y: Math.round(rect.y),
-    width: Math.round(Math.min(rect.width, image.width - rect.x)),
-    height: Math.round(Math.min(rect.height, image.height - rect.y)),
-  };
-  if (r.width < 4 || r.height < 4) throw badRequest("The swatch area lies outside the photo. Mark it again.");
-  try {
-    return readSwatch(cropPixels(image, r), image.channels, calibration ?? UNCALIBRATED);
-  } catch (e) {
-    if (e instanceof RangeError) throw badRequest(e.message);
-    throw e;
-  }
-}
-
-function calibrationSummary(c: Calibration | null): Reading["calibration"] {
-  return c
-    ? { model: c.model, looMeanDe00: c.looMeanDe00, looMaxDe00: c.looMaxDe00, quality: c.quality, reasons: c.reasons }
-    : null;
+  return decodeRaw(bytes);
 }
 
 /** Reads one or more swatch areas of a photo, calibrated by the studio card marked in it. */
