@@ -12,6 +12,7 @@ export const navItems: NavItem[] = [
   { path: "", label: "Home", icon: "home" },
   { path: "/trials", label: "Trials", icon: "trials" },
   { path: "/library", label: "Library", icon: "library" },
+  { path: "/colourways", label: "Colourways", icon: "colourways" },
   { path: "/activity", label: "Activity", icon: "activity" },
   { path: "/members", label: "People", icon: "people" },
 ];
