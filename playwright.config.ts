@@ -2,7 +2,7 @@ import { defineConfig, devices } from "@playwright/test";
 
 // End-to-end tests against `next start` on the seeded e2e database, in Debian's Chromium
 // (nothing is downloaded). Run `npm run build` first; scripts/test.sh does it in order.
-const PORT = 3100;
+const PORT = Number(process.env.E2E_PORT ?? 3100);
 const BASE_URL = `http://127.0.0.1:${PORT}`;
 const E2E_DATABASE_URL = process.env.E2E_DATABASE_URL ?? "postgres://postgres@127.0.0.1:54329/undertone_e2e";
 const NEXTAUTH_SECRET = process.env.NEXTAUTH_SECRET ?? "undertone-test-secret-not-for-use";
