@@ -4,6 +4,7 @@ import { onlineManager } from "@tanstack/react-query";
 import Link from "next/link";
 import { useState, useSyncExternalStore } from "react";
 import { Button } from "@/components/ui/button";
+import { useOtherPendingWrites } from "./other-writes";
 import { usePendingWrites } from "./pending-view";
 import { useReapply } from "./reapply";
 import { type Unsent, dismissUnsent, unsentValues, useUnsent } from "./unsent";
@@ -19,7 +20,9 @@ export function useOnline(): boolean {
  */
 export function OfflineStatus() {
   const online = useOnline();
-  const pending = usePendingWrites();
+  const mine = usePendingWrites();
+  const others = useOtherPendingWrites();
+  const pending = [...mine.map((w) => ({ mutationId: w.mutationId, label: w.vars.label })), ...others];
   const unsent = useUnsent();
   const [open, setOpen] = useState(false);
   if (online && pending.length === 0 && unsent.length === 0) return null;
@@ -48,7 +51,7 @@ export function OfflineStatus() {
           {open && (
             <ol className="mx-auto max-w-6xl list-decimal space-y-1 px-4 pb-3 pl-9 text-sm">
               {pending.map((w) => (
-                <li key={w.mutationId}>{w.vars.label}</li>
+                <li key={w.mutationId}>{w.label}</li>
               ))}
             </ol>
           )}
@@ -73,9 +76,13 @@ function UnsentNotice({ u }: { u: Unsent }) {
           {conflict ? "Not saved — someone else changed this first" : "Not saved — the server refused this change"}
         </p>
         <p>
-          <Link className="underline" href={`/s/${u.vars.studioId}/trials/${u.vars.trialId}`}>
-            {u.vars.label}
-          </Link>
+          {u.vars.trialId ? (
+            <Link className="underline" href={`/s/${u.vars.studioId}/trials/${u.vars.trialId}`}>
+              {u.vars.label}
+            </Link>
+          ) : (
+            u.vars.label
+          )}
           {": "}
           {u.message}
         </p>
@@ -89,6 +96,7 @@ function UnsentNotice({ u }: { u: Unsent }) {
         </dl>
         {error && <p className="text-danger">{error}</p>}
         <div className="flex flex-wrap gap-2">
+          {!u.kind.startsWith("list:") && (
           <Button
             disabled={busy}
             onClick={async () => {
@@ -105,6 +113,7 @@ function UnsentNotice({ u }: { u: Unsent }) {
           >
             {conflict ? "Apply my values again" : "Try again"}
           </Button>
+          )}
           <Button variant="plain" onClick={() => dismissUnsent(u.id)}>
             Let it go
           </Button>

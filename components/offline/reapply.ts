@@ -57,6 +57,8 @@ export function useReapply(studioId: string, trialId: string) {
         else writes.duplicateLayer({ label, layerId: id, tempId: newPendingId() });
         break;
       }
+      default:
+        throw new Error("This change cannot be sent again from here: make it again on its page.");
       case "reorderLayers": {
         const v = u.vars as ReorderVars;
         const wanted = v.layerIds.map(resolveLayerId).filter((id) => t.layers.some((l) => l.id === id));

@@ -77,7 +77,8 @@ export function resolveVersion(entityId: string, base: number): number {
   return v;
 }
 
-function recordVersion(entityId: string, sent: number, got: number): void {
+/** Notes that this device moved an entity from `sent` to `got` with its own successful write. */
+export function recordVersion(entityId: string, sent: number, got: number): void {
   if (got === sent) return;
   chains.set((all) => {
     const next = { ...all, [entityId]: { ...all[entityId], [sent]: got } };

@@ -10,7 +10,8 @@ import type { WriteKind, WriteVars } from "./trial-writes";
 
 export interface Unsent {
   id: string;
-  kind: WriteKind;
+  /** A trial-page write (WriteKind), or "list:<kind>" for the trial list's own writes. */
+  kind: WriteKind | `list:${string}`;
   vars: WriteVars;
   status: number;
   message: string;
@@ -21,7 +22,7 @@ export interface Unsent {
 const store = localStore<Unsent[]>("undertone.offline.unsent", []);
 const EMPTY: Unsent[] = [];
 
-export function recordUnsent(kind: WriteKind, vars: WriteVars, e: Error): void {
+export function recordUnsent(kind: Unsent["kind"], vars: WriteVars, e: Error): void {
   const status = e instanceof ApiError ? e.status : 0;
   const entry: Unsent = {
     id: Math.random().toString(36).slice(2, 10),
