@@ -8,6 +8,9 @@ import { Field, Select } from "@/components/ui/field";
 import { Notice } from "@/components/ui/sheet";
 import { useAddLot } from "./use-colourways";
 
+// No trial chosen yet: a well-formed id that matches nothing, so the readings query answers empty instead of failing validation.
+const EMPTY = "00000000-0000-0000-0000-000000000000";
+
 /** Records a dye lot: the trial that dyed it, skeins, weighed fibre and one of that trial's readings. */
 export function AddLotForm({ studioId, colourwayId }: { studioId: string; colourwayId: string }) {
   const trials = useTrials(studioId, { sort: "updated", dir: "desc", pageSize: "50" });
@@ -16,7 +19,7 @@ export function AddLotForm({ studioId, colourwayId }: { studioId: string; colour
   const [code, setCode] = useState("");
   const [skeins, setSkeins] = useState("1");
   const [weight, setWeight] = useState("100");
-  const photos = useTrialPhotos(studioId, trialId || "none");
+  const photos = useTrialPhotos(studioId, trialId || EMPTY);
   const add = useAddLot(studioId, colourwayId);
   const readings = trialId ? (photos.data?.readings ?? []).filter((r) => r.photoKind !== "base") : [];
   const chosenReading = readingId || readings[readings.length - 1]?.id || "";
