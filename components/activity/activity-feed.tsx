@@ -54,9 +54,9 @@ export function ActivityFeed() {
           {items.map((e) => {
             const href = hrefFor(studioId, e);
             const text = (
-              <>
+              <span className="line-clamp-3">
                 <span className="font-medium text-ink">{e.actor?.name ?? "Someone"}</span> <span className="text-ink-soft">{e.summary}</span>
-              </>
+              </span>
             );
             return (
               <li key={e.id} className="py-2">

@@ -121,7 +121,7 @@ export async function createComment(
       studio,
       actor: user.id,
       kind: "comment.added",
-      summary: `commented on “${trial.title}”: ${excerpt(comment.bodyText, 120)}`,
+      summary: `commented on “${trial.title}”: ${excerpt(comment.bodyText, 100)}`,
       trialId: trial.id,
       layerId: input.layerId ?? null,
       commentId: comment.id,

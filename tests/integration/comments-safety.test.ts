@@ -176,8 +176,8 @@ describe("studio boundaries", () => {
     const all = await list();
     expect(all.json.find((c: { id: string }) => c.id === ok.json.id).layerNumber).toBe(1);
     // ?layerId= keeps only that layer's thread.
-    const res = await commentsRoute.GET(new Request(`http://127.0.0.1/x?layerId=${trial.layerIds[0]}`), { params: Promise.resolve(tp()) });
-    expect((await res.json()).map((c: { id: string }) => c.id)).toEqual([ok.json.id]);
+    const onLayer = await commentsRoute.GET(new Request(`http://127.0.0.1/x?layerId=${trial.layerIds[0]}`), { params: Promise.resolve(tp()) });
+    expect((await onLayer.json()).map((c: { id: string }) => c.id)).toEqual([ok.json.id]);
   });
 });
 
