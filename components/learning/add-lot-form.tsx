@@ -8,7 +8,7 @@ import { Field, Select } from "@/components/ui/field";
 import { Notice } from "@/components/ui/sheet";
 import { useAddLot } from "./use-colourways";
 
-// No trial chosen yet: a well-formed id that matches nothing, so the readings query answers empty instead of failing validation.
+// No trial chosen yet: a well-formed id that matches no trial (the query fails quietly; no readings are listed).
 const EMPTY = "00000000-0000-0000-0000-000000000000";
 
 /** Records a dye lot: the trial that dyed it, skeins, weighed fibre and one of that trial's readings. */
