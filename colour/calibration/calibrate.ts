@@ -8,7 +8,7 @@ import { deltaE00 } from "../difference";
 import { labToXyz, xyzToLab } from "../spaces";
 import type { Lab, Rgb, Xyz } from "../types";
 import { CalibrationError } from "./errors";
-import { fitModel, MIN_PATCHES, predictXyz, type CalibrationModel, type ModelParams } from "./fit";
+import { fitModel, leaveOneOutXyz, MIN_PATCHES, predictXyz, type CalibrationModel, type ModelParams } from "./fit";
 import { fitToneCurve, toneCurveFromParams, type ToneCurve, type ToneCurveParams } from "./tone-curve";
 import { assessQuality, checkPatches, NEUTRAL_CHROMA, type CalibrationQuality } from "./checks";
 
@@ -99,7 +99,20 @@ export function calibrateCard(patches: readonly CardPatch[]): Calibration {
     throw new CalibrationError("degenerate", "No correction could be fitted to these patches: check the card's grey patches.");
   }
 
+  // Leaving out a colour patch leaves the tone curve as it is, so its leave-one-out prediction has a
+  // closed form; leaving out a grey changes the curve, so those fits are redone in full.
+  const closed = Object.fromEntries(
+    fitted.map((m) => [m, leaveOneOutXyz(full.fits[m]!, full.lin, xyz, neutral)]),
+  ) as Record<CalibrationModel, (Xyz | null)[]>;
   const loo = patches.map((_, i) => {
+    if (!neutral[i]) {
+      const out: Partial<Record<CalibrationModel, number>> = {};
+      for (const m of fitted) {
+        const p = closed[m][i];
+        if (p) out[m] = deltaE00(patches[i].known, xyzToLab(p));
+      }
+      return out;
+    }
     const keep = (_: unknown, j: number) => j !== i;
     let fitsWithout: ReturnType<typeof fitAll> | null = null;
     try {
@@ -185,7 +198,7 @@ function fitAll(
   const lin = patches.map((p) => curve.toLinear(p.rgb));
   const fits: Partial<Record<CalibrationModel, ModelParams | null>> = {};
   for (const m of models) fits[m] = fitModel(m, lin, xyz, neutral);
-  return { curve, fits };
+  return { curve, fits, lin };
 }
 
 function stripCurve(c: ToneCurve): ToneCurveParams {

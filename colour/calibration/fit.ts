@@ -4,7 +4,7 @@
 // k, so a reading does not depend on how bright the photo came out (Finlayson, Mackiewicz &
 // Hurlbert, "Color correction using root-polynomial regression", IEEE TIP 24(5):1460–1470, 2015).
 // Fits are ordinary least squares in XYZ, solved with ml-matrix.
-import { Matrix, SingularValueDecomposition, solve } from "ml-matrix";
+import { inverse, Matrix, SingularValueDecomposition, solve } from "ml-matrix";
 import { SRGB_TO_XYZ, xyzToLinearSrgb } from "../spaces";
 import type { Rgb, Xyz } from "../types";
 
@@ -90,4 +90,25 @@ function fitWhiteBalance(lin: readonly Rgb[], xyz: readonly Xyz[], neutral: read
     model: "white-balance",
     coefficients: [0, 1, 2].flatMap((row) => [0, 1, 2].map((col) => M[row * 3 + col] * k[col])),
   };
+}
+
+/**
+ * Each patch's prediction by the same model fitted without it, without refitting: for ordinary
+ * least squares ŷ₋ᵢ = yᵢ − (yᵢ − ŷᵢ) / (1 − hᵢᵢ), hᵢᵢ the diagonal of the hat matrix A(AᵀA)⁻¹Aᵀ
+ * (the leave-one-out identity of linear regression; e.g. Hastie, Tibshirani & Friedman, The Elements
+ * of Statistical Learning, 2nd ed., §7.10 — section from memory). White balance uses only the greys,
+ * so for any other patch its prediction is already a leave-one-out one. Null where no such fit
+ * exists (a grey under white balance; hᵢᵢ ≈ 1).
+ */
+export function leaveOneOutXyz(params: ModelParams, lin: readonly Rgb[], xyz: readonly Xyz[], neutral: readonly boolean[]): (Xyz | null)[] {
+  if (params.model === "white-balance") return lin.map((p, i) => (neutral[i] ? null : predictXyz(params, p)));
+  const F = lin.map((p) => features(params.model, p));
+  const G = inverse(new Matrix(F).transpose().mmul(new Matrix(F)));
+  return F.map((f, i) => {
+    const gf = G.mmul(Matrix.columnVector(f)).to1DArray();
+    const h = f.reduce((s, v, j) => s + v * gf[j], 0);
+    if (!(1 - h > 1e-9)) return null;
+    const pred = predictXyz(params, lin[i]), y = xyz[i], k = 1 / (1 - h);
+    return { X: y.X - (y.X - pred.X) * k, Y: y.Y - (y.Y - pred.Y) * k, Z: y.Z - (y.Z - pred.Z) * k };
+  });
 }

@@ -3,7 +3,7 @@ export { calibrateCard, restoreCalibration } from "./calibrate";
 export type { Calibration, CalibrationParams, CandidateScore, CardPatch, PatchResult } from "./calibrate";
 export { CalibrationError } from "./errors";
 export type { CalibrationErrorCode } from "./errors";
-export { features, fitModel, MIN_PATCHES, predictXyz } from "./fit";
+export { features, fitModel, leaveOneOutXyz, MIN_PATCHES, predictXyz } from "./fit";
 export type { CalibrationModel, ModelParams } from "./fit";
 export { fitToneCurve, SRGB_PARAMS, toneCurveFromParams } from "./tone-curve";
 export type { NeutralSample, ToneCurve, ToneCurveKind, ToneCurveParams } from "./tone-curve";

@@ -2,7 +2,7 @@
 //
 // Pixels are clustered in CIELAB with lightness at half weight — the textile convention of
 // CMC(2:1) and CIEDE2000 with kL = 2, and here also because strand shading spreads a yarn's
-// lightness far more than its hue. k is chosen on a 2 000-pixel subsample: the largest k (≤ 6) whose
+// lightness far more than its hue. k is chosen on a 1 200-pixel subsample: the largest k (≤ 6) whose
 // clusters each hold ≥ 3 % and lie ≥ 5 ΔE00 (kL = 2) apart. Clusters that are shadow, glint or colour bleed are told
 // apart in roles.ts; inside each colour cluster a band around the lit level (lit.ts) cuts the dark
 // tail and the bright low-chroma tail, and the rest is averaged in linear XYZ.
@@ -36,7 +36,7 @@ const MAX_K = 6;
 const SEPARATION = 5;
 /** A cluster below this share of the samples is not a colour of its own [our choice, as the palette's floor]. */
 const MIN_CLUSTER_SHARE = 0.03;
-const CLUSTER_SAMPLE = 2000;
+const CLUSTER_SAMPLE = 1200;
 
 /** Cluster the samples, drop shadow and glint pixels, and return each remaining colour's robust mean. */
 export function groupColours(s: Samples, seed = 1): { groups: ColourGroup[]; shadow: number; glint: number } {
@@ -51,8 +51,13 @@ export function groupColours(s: Samples, seed = 1): { groups: ColourGroup[]; sha
   const assign = new Uint8Array(s.n);
   assignNearest(points, centres, LAB_WEIGHTS, assign);
   const k = centres.length / 3;
-  const members: number[][] = Array.from({ length: k }, () => []);
-  for (let i = 0; i < s.n; i++) members[assign[i]].push(i);
+  // Members of each cluster as slices of one index array (a counting sort: no per-pixel allocation).
+  const start = new Int32Array(k + 1);
+  for (let i = 0; i < s.n; i++) start[assign[i] + 1]++;
+  for (let j = 0; j < k; j++) start[j + 1] += start[j];
+  const order = new Int32Array(s.n), fill = start.slice(0, k);
+  for (let i = 0; i < s.n; i++) order[fill[assign[i]]++] = i;
+  const members = Array.from({ length: k }, (_, j) => order.subarray(start[j], start[j + 1]));
 
   const summaries = members.map((m) => {
     const xyz = meanXyz(s, m);
