@@ -12,3 +12,9 @@ const K = Math.sqrt(1 - Math.sin(Math.PI / 3));
 export function de00LowerBound(r: number, c1: number): number {
   return (K * r) / (1 + 0.045 * (1.5 * c1 + r / 2));
 }
+
+/** The CIELAB radius beyond which every colour is more than `d` ΔE00 away (Infinity when no radius is). */
+export function radiusFor(d: number, c1: number): number {
+  const denom = K - 0.0225 * d;
+  return denom > 0 ? (d * (1 + 0.0675 * c1)) / denom : Infinity;
+}

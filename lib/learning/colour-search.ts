@@ -2,7 +2,7 @@ import "server-only";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { deltaE00, hexToLab, type Lab } from "@/colour";
 import { ColourwaySchema, type Studio } from "@/entities";
-import { de00LowerBound } from "./colour-bound";
+import { de00LowerBound, radiusFor } from "./colour-bound";
 
 export interface ColourMatch {
   kind: "reading" | "colourway";
@@ -16,7 +16,6 @@ export interface ColourMatch {
 interface Row {
   id: string;
   trial_id: string;
-  title: string;
   l: number;
   a: number;
   b: number;
@@ -30,10 +29,11 @@ interface Row {
 export async function nearestReadings(em: EntityManager, studioId: string, target: Lab, k: number): Promise<ColourMatch[]> {
   const c1 = Math.hypot(target.a, target.b);
   const conn = em.getConnection();
-  for (let r = 8; ; r *= 2) {
+  let r = 8;
+  for (;;) {
     const rows = await conn.execute<Row[]>(
-      `select r.id, r.trial_id, t.title, r.l, r.a, r.b from readings r join trials t on t.id = r.trial_id
-       where r.studio_id = ? and r.l between ? and ? and r.a between ? and ? and r.b between ? and ?`,
+      `select id, trial_id, l, a, b from readings
+       where studio_id = ? and l between ? and ? and a between ? and ? and b between ? and ?`,
       [studioId, target.L - r, target.L + r, target.a - r, target.a + r, target.b - r, target.b + r],
     );
     const scored = rows
@@ -42,15 +42,23 @@ export async function nearestReadings(em: EntityManager, studioId: string, targe
       .slice(0, k);
     const everything = r > 400; // the box then holds every possible CIELAB colour
     if (everything || (scored.length === k && scored[k - 1].d < de00LowerBound(r, c1))) {
+      const titles = await conn.execute<{ id: string; title: string }[]>(
+        `select id, title from trials where id in (${scored.map(() => "?").join(",") || "null"})`,
+        scored.map((s) => s.x.trial_id),
+      );
+      const title = new Map(titles.map((t) => [t.id, t.title]));
       return scored.map(({ x, d }) => ({
         kind: "reading",
         id: x.id,
         trialId: x.trial_id,
-        title: x.title,
+        title: title.get(x.trial_id) ?? "",
         lab: { L: x.l, a: x.a, b: x.b },
         de00: d,
       }));
     }
+    // With k candidates, jump straight to the box that settles their k-th difference (a larger box
+    // can only lower it); with fewer, look twice as far.
+    r = scored.length === k ? Math.max(r * 1.01, Math.min(radiusFor(scored[k - 1].d, c1) * 1.001, 401)) : r * 2;
   }
 }
 

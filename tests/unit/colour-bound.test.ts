@@ -2,7 +2,7 @@
 // CIEDE2000 (Sharma, Wu & Dalal 2005), or the search could miss a match.
 import { describe, expect, it } from "vitest";
 import { deltaE00, deltaEab } from "@/colour";
-import { de00LowerBound } from "@/lib/learning/colour-bound";
+import { de00LowerBound, radiusFor } from "@/lib/learning/colour-bound";
 
 function rng(seed: number) {
   return () => ((seed = (seed * 1664525 + 1013904223) >>> 0) / 2 ** 32);
@@ -32,5 +32,10 @@ describe("de00LowerBound", () => {
       expect(de00LowerBound(16, c)).toBeGreaterThan(de00LowerBound(8, c));
       expect(de00LowerBound(0, c)).toBe(0);
     }
+  });
+
+  it("radiusFor inverts it: at that radius the bound reaches the given difference", () => {
+    for (const [d, c] of [[1, 0], [3, 30], [8, 90]]) expect(de00LowerBound(radiusFor(d, c), c)).toBeCloseTo(d, 9);
+    expect(radiusFor(20, 0)).toBe(Infinity); // beyond what the bound can ever promise
   });
 });
