@@ -13,6 +13,9 @@ export interface ColourMatch {
   de00: number;
 }
 
+/** Largest lightness weight SL of CIEDE2000 (at L̄ = 0 or 100): 1 + 0.015·2500/√2520. */
+const SL_MAX = 1 + (0.015 * 2500) / Math.sqrt(2520);
+
 interface Row {
   id: string;
   trial_id: string;
@@ -29,19 +32,22 @@ interface Row {
 export async function nearestReadings(em: EntityManager, studioId: string, target: Lab, k: number): Promise<ColourMatch[]> {
   const c1 = Math.hypot(target.a, target.b);
   const conn = em.getConnection();
+  // Half-widths of the box: in L* (outside it, ΔE00 > ΔL*/1.75, as SL ≤ 1.75) and in a*, b*.
+  let rL = 4;
   let r = 8;
   for (;;) {
     const rows = await conn.execute<Row[]>(
       `select id, trial_id, l, a, b from readings
        where studio_id = ? and l between ? and ? and a between ? and ? and b between ? and ?`,
-      [studioId, target.L - r, target.L + r, target.a - r, target.a + r, target.b - r, target.b + r],
+      [studioId, target.L - rL, target.L + rL, target.a - r, target.a + r, target.b - r, target.b + r],
     );
     const scored = rows
       .map((x) => ({ x, d: deltaE00(target, { L: x.l, a: x.a, b: x.b }) }))
       .sort((p, q) => p.d - q.d || (p.x.id < q.x.id ? -1 : 1))
       .slice(0, k);
-    const everything = r > 400; // the box then holds every possible CIELAB colour
-    if (everything || (scored.length === k && scored[k - 1].d < de00LowerBound(r, c1))) {
+    const everything = r > 400 && rL > 100; // the box then holds every possible CIELAB colour
+    const settled = Math.min(rL / SL_MAX, de00LowerBound(r, c1)); // no colour outside the box is closer
+    if (everything || (scored.length === k && scored[k - 1].d < settled)) {
       const titles = await conn.execute<{ id: string; title: string }[]>(
         `select id, title from trials where id in (${scored.map(() => "?").join(",") || "null"})`,
         scored.map((s) => s.x.trial_id),
@@ -58,7 +64,14 @@ export async function nearestReadings(em: EntityManager, studioId: string, targe
     }
     // With k candidates, jump straight to the box that settles their k-th difference (a larger box
     // can only lower it); with fewer, look twice as far.
-    r = scored.length === k ? Math.max(r * 1.01, Math.min(radiusFor(scored[k - 1].d, c1) * 1.001, 401)) : r * 2;
+    if (scored.length === k) {
+      const d = scored[k - 1].d;
+      rL = Math.max(rL, Math.min(d * SL_MAX * 1.001, 101));
+      r = Math.max(r, Math.min(radiusFor(d, c1) * 1.001, 401));
+    } else {
+      rL *= 2;
+      r *= 2;
+    }
   }
 }
 
