@@ -4,30 +4,10 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { useStudio } from "@/components/studio/studio-context";
 import { primeAlerts } from "./alerts";
+import type { TimerPreset } from "./presets";
 import { useStartTimer } from "./use-timers";
 
-export interface TimerPreset {
-  label: string;
-  minutes: number;
-}
-
-const SETTING_WORDS = { simmer: "Simmer", steam: "Steam", microwave: "Microwave" } as const;
-/** Usual lengths when the layer gives none [common practice]: steam 20–45 min, simmer/hold 30–45 min, short microwave bursts. */
-const SETTING_DEFAULT_MIN = { simmer: 30, steam: 20, microwave: 2 } as const;
-
-/** The timers a layer offers: its own setting step first, then a rest and a hold. */
-export function presetsFor(layer: {
-  setting: { method: "simmer" | "steam" | "microwave" | "none"; minutes?: number | null };
-  minutes?: number | null;
-}): TimerPreset[] {
-  const out: TimerPreset[] = [];
-  const s = layer.setting.method;
-  if (s !== "none") out.push({ label: SETTING_WORDS[s], minutes: layer.setting.minutes || SETTING_DEFAULT_MIN[s] });
-  out.push({ label: "Rest", minutes: 5 });
-  const hold = layer.minutes || 30;
-  if (!out.some((p) => p.minutes === hold && p.label !== "Rest")) out.push({ label: "Hold", minutes: hold });
-  return out;
-}
+export { presetsFor } from "./presets";
 
 /** Start buttons for a layer's step timers: the setting step in one tap, others one tap further. */
 export function TimerStart({

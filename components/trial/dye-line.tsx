@@ -1,5 +1,5 @@
 import type { LayerDyeDto } from "@/lib/trials/types";
-import { type UnitSystem, UNIT_WORDS, amountWords, num } from "./units";
+import { type UnitSystem, UNIT_WORDS, amountWords, kitchenNumber, num } from "./units";
 
 /** A dye's colour as a small chip; dashed when the library has no colour for it. */
 export function DyeChip({ hex, name }: { hex: string | null; name: string }) {
@@ -17,7 +17,9 @@ export function DyeChip({ hex, name }: { hex: string | null; name: string }) {
 
 /** What the dyer typed, in their unit: "3 tbsp", "0.5 % DOS", "1.2 g". */
 export function enteredWords(e: LayerDyeDto["entered"]): string {
-  return e.unit === "dos" ? `${num(e.value)} % DOS` : `${num(e.value)} ${UNIT_WORDS[e.unit]}`;
+  if (e.unit === "dos") return `${num(e.value)} % DOS`;
+  const kitchen = e.unit === "tsp" || e.unit === "tbsp" || e.unit === "cup";
+  return `${kitchen ? kitchenNumber(e.value) : num(e.value)} ${UNIT_WORDS[e.unit]}`;
 }
 
 /** One dye of a layer with its amount in every unit: DOS %, grams of dye, ml of stock (and spoons for US). */

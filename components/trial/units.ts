@@ -49,6 +49,20 @@ export const UNIT_WORDS: Record<AmountUnit, string> = {
 
 export const isVolume = (u: AmountUnit) => u !== "dos" && u !== "g";
 
+// The fractions kitchen spoons and cups come in.
+const FRACTIONS: [number, string][] = [
+  [1 / 8, "1/8"], [1 / 4, "1/4"], [1 / 3, "1/3"], [3 / 8, "3/8"], [1 / 2, "1/2"], [5 / 8, "5/8"], [2 / 3, "2/3"], [3 / 4, "3/4"], [7 / 8, "7/8"],
+];
+
+/** A count of spoons or cups as typed in a kitchen: 1.5 → "1 1/2", 0.333… → "1/3"; otherwise a decimal. */
+export function kitchenNumber(v: number): string {
+  const whole = Math.floor(v + 1e-9);
+  const rest = v - whole;
+  if (rest < 1e-6) return String(whole);
+  const f = FRACTIONS.find(([x]) => Math.abs(x - rest) < 0.005);
+  return f ? `${whole ? `${whole} ` : ""}${f[1]}` : num(v);
+}
+
 /**
  * Depth of shade for an amount entered in any unit (the same formulas the server uses): DOS as is,
  * grams of powder over fibre weight, or a volume of stock solution. Undefined when it cannot be

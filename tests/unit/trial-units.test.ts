@@ -2,7 +2,7 @@
 // checked here against the worked values in DOMAIN.md ("Stock solutions", marked common practice
 // there) and the exact US measures of NIST Handbook 44, Appendix C.
 import { describe, expect, it } from "vitest";
-import { amountWords, dosOf, num, temperature, toCelsius } from "@/components/trial/units";
+import { amountWords, dosOf, kitchenNumber, num, temperature, toCelsius } from "@/components/trial/units";
 
 const ONE_PCT = { pct: 1, definition: "to-volume" as const };
 
@@ -66,6 +66,13 @@ describe("reading numbers", () => {
     expect(num(52.52)).toBe("52.5");
     expect(num(908.2)).toBe("908");
     expect(num(0)).toBe("0");
+  });
+
+  it("writes spoon and cup counts the way a measuring set has them", () => {
+    expect(kitchenNumber(1.5)).toBe("1 1/2");
+    expect(kitchenNumber(1 / 3)).toBe("1/3");
+    expect(kitchenNumber(2)).toBe("2");
+    expect(kitchenNumber(0.3)).toBe("0.3");
   });
 
   it("shows temperatures in the user's scale and stores °C", () => {
