@@ -1,6 +1,7 @@
 import "server-only";
 import { randomUUID } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
+import { ColourwaySchema } from "@/entities/colourway";
 import { type FollowTarget, FollowSchema } from "@/entities/comment";
 import type { Studio } from "@/entities/studio";
 import { TrialSchema } from "@/entities/trial";
@@ -28,10 +29,7 @@ async function targetTitle(em: EntityManager, studio: Studio, type: FollowTarget
   if (type === "trial") {
     return (await em.findOne(TrialSchema, { id, studio }))?.title ?? null;
   }
-  // Colourways are looked up by entity name, so following them works as soon as the entity exists.
-  if (!em.getMetadata().find("Colourway")) return null;
-  const row = (await em.findOne("Colourway", { id, studio } as never)) as { name?: string } | null;
-  return row ? (row.name ?? "Colourway") : null;
+  return (await em.findOne(ColourwaySchema, { id, studio }))?.name ?? null;
 }
 
 async function status(em: EntityManager, studio: Studio, userId: string, type: FollowTarget, id: string): Promise<FollowStatusDto> {

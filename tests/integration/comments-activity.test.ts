@@ -2,6 +2,7 @@
 // and marking read, following and unfollowing, follower notices from recordActivity, and the
 // feed's order, filters and pages.
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { ColourwaySchema } from "@/entities/colourway";
 import { getEm, getOrm } from "@/lib/db";
 import { recordActivity } from "@/lib/activity";
 import * as commentsRoute from "@/app/api/studios/[studioId]/trials/[trialId]/comments/route";
@@ -153,6 +154,31 @@ describe("following", () => {
     const n = (await notifications(guest)).json.items[0];
     expect([n.kind, n.summary]).toEqual(["followed-activity", `${dyer.name} added layer 2 (immersion) to “Ochre steam”`]);
     expect((await notifications(dyer)).json.items.some((x: { summary: string }) => x.summary.includes("Ochre steam"))).toBe(false);
+  });
+
+  it("a colourway can be followed; a new lot on it notifies its followers", async () => {
+    const t = await makeTrial(studio.id, dyer, "Harbour grey");
+    const em = await getEm();
+    const cw = em.create(ColourwaySchema, {
+      studio: studio.id,
+      name: "Harbour Fog",
+      targetL: 60,
+      targetA: -2,
+      targetB: -4,
+      sourceTrial: t.id,
+      recipe: {},
+      proposedBy: dyer.id,
+    });
+    await em.flush();
+    actAs(owner);
+    const f = await call(followRoute.PUT, "PUT", { studioId: studio.id, targetType: "colourway", targetId: cw.id });
+    expect(f.json).toEqual({ targetType: "colourway", targetId: cw.id, following: true, followers: 1 });
+    const mine = await call(followsRoute.GET, "GET", sp());
+    expect(mine.json.some((x: { targetId: string; title: string }) => x.targetId === cw.id && x.title === "Harbour Fog")).toBe(true);
+    await recordActivity(em, { studio: studio.id, actor: dyer.id, kind: "lot.added", colourwayId: cw.id, summary: "added lot 3 to “Harbour Fog”" });
+    await em.flush();
+    const n = (await notifications(owner)).json.items[0];
+    expect([n.kind, n.summary]).toEqual(["followed-activity", `${dyer.name} added lot 3 to “Harbour Fog”`]);
   });
 
   it("refuses unknown targets: another studio's trial or a made-up kind (404)", async () => {
