@@ -16,8 +16,9 @@ export const CLIP_SHARE = 0.02;
 export const CRUSH_LEVEL = 2;
 /** The brightest patch must reach this in its brightest channel, else the photo is underexposed [our choice]. */
 export const UNDEREXPOSED = 64;
-/** Product thresholds on the leave-one-out mean ΔE00 (Undertone's own). */
+/** Leave-one-out mean ΔE00 up to which a calibration is "good" (Undertone's product threshold). */
 export const GOOD_DE00 = 1.5;
+/** Leave-one-out mean ΔE00 up to which a calibration is "usable"; above it, "retake" (Undertone's product threshold). */
 export const USABLE_DE00 = 3;
 
 interface PatchLike {

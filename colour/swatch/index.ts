@@ -1,5 +1,5 @@
 // Swatch reading: the robust colour of a yarn region and its dominant colours with area shares.
-export { cropPixels, readSwatch, UNCALIBRATED } from "./region";
+export { cropPixels, readRegion, readSwatch, UNCALIBRATED } from "./region";
 export type { ReadOptions, SwatchCalibration, SwatchReading } from "./region";
 export { groupColours, LAB_WEIGHTS, paletteOf } from "./palette";
 export { classify } from "./roles";

@@ -46,17 +46,17 @@ export function litWindow(s: Samples, m: ArrayLike<number>): LitWindow {
 }
 
 /** Split pixels by a lit band: below it shadow, above it and no more saturated than usual glint, else kept. */
-export function applyWindow(s: Samples, m: ArrayLike<number>, w: LitWindow): { keep: number[]; shadow: number; glint: number } {
-  const keep: number[] = [];
-  let shadow = 0, glint = 0;
+export function applyWindow(s: Samples, m: ArrayLike<number>, w: LitWindow): { keep: Int32Array; shadow: number; glint: number } {
+  const keep = new Int32Array(m.length);
+  let kept = 0, shadow = 0, glint = 0;
   for (let j = 0; j < m.length; j++) {
     const i = m[j];
     const v = Math.log(Math.max(s.Y[i], 1e-6));
     if (v < w.mu - w.half) shadow++;
     else if (v > w.mu + w.half && Math.hypot(s.a[i], s.b[i]) <= w.medC + 3) glint++;
-    else keep.push(i);
+    else keep[kept++] = i;
   }
-  return { keep, shadow, glint };
+  return { keep: keep.subarray(0, kept), shadow, glint };
 }
 
 /** Plain mean XYZ of the listed samples. */

@@ -30,7 +30,8 @@ export interface ColourGroup {
   area: number;
 }
 
-export const LAB_WEIGHTS: [number, number, number] = [0.25, 1, 1]; // (½)² on L*: distances use squared weights
+/** Squared-distance weights on L*, a*, b* for clustering: lightness at half weight, (½)² = 0.25 (as kL = 2 in textile practice). */
+export const LAB_WEIGHTS: [number, number, number] = [0.25, 1, 1];
 const MAX_K = 6;
 /** Cluster centres closer than this (ΔE00 with kL = 2) are one colour [our choice]. */
 const SEPARATION = 5;

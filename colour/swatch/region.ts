@@ -54,11 +54,24 @@ export interface ReadOptions {
 export function readSwatch(
   pixels: Uint8Array | Uint8ClampedArray, channels: number, calibration: SwatchCalibration = UNCALIBRATED, options: ReadOptions = {},
 ): SwatchReading {
-  if (channels < 3) throw new RangeError("readSwatch needs RGB pixels (3 or 4 channels).");
-  const total = Math.floor(pixels.length / channels);
-  if (total === 0) throw new RangeError("The swatch region holds no pixels.");
+  const total = Math.floor(pixels.length / Math.max(channels, 1));
+  return readArea({ data: pixels, width: total, height: 1, channels }, { x: 0, y: 0, width: total, height: 1 }, calibration, options);
+}
+
+/** The same reading as readSwatch, taken from a rectangle of a whole decoded photo without copying it. */
+export function readRegion(
+  image: RawImage, rect: PixelRect, calibration: SwatchCalibration = UNCALIBRATED, options: ReadOptions = {},
+): SwatchReading {
+  const x0 = Math.max(0, Math.round(rect.x)), y0 = Math.max(0, Math.round(rect.y));
+  const x1 = Math.min(image.width, Math.round(rect.x + rect.width)), y1 = Math.min(image.height, Math.round(rect.y + rect.height));
+  return readArea(image, { x: x0, y: y0, width: Math.max(0, x1 - x0), height: Math.max(0, y1 - y0) }, calibration, options);
+}
+
+function readArea(image: RawImage, rect: PixelRect, calibration: SwatchCalibration, options: ReadOptions): SwatchReading {
+  if (image.channels < 3) throw new RangeError("readSwatch needs RGB pixels (3 or 4 channels).");
+  if (rect.width * rect.height === 0) throw new RangeError("The swatch region holds no pixels.");
   const maxSamples = options.maxSamples ?? 20_000;
-  const samples = sample(pixels, channels, total, maxSamples, calibration, options.seed ?? 1);
+  const samples = sample(image, rect, maxSamples, calibration, options.seed ?? 1);
   const { groups, shadow, glint } = groupColours(samples, options.seed ?? 1);
   const used = groups.reduce((t, g) => t + g.count, 0);
   const area = groups.reduce((t, g) => t + g.area, 0);
@@ -92,9 +105,9 @@ export function cropPixels(image: RawImage, rect: PixelRect): Uint8Array {
   return out;
 }
 
-function sample(
-  pixels: Uint8Array | Uint8ClampedArray, channels: number, total: number, max: number, cal: SwatchCalibration, seed: number,
-): Samples {
+function sample(image: RawImage, rect: PixelRect, max: number, cal: SwatchCalibration, seed: number): Samples {
+  const { data: pixels, width, channels } = image;
+  const total = rect.width * rect.height;
   const n = Math.min(total, max);
   const random = seeded(seed ^ 0x5eed);
   const [lr, lg, lb] = cal.toneCurve.lut;
@@ -108,9 +121,15 @@ function sample(
   const root = fit?.model === "root-polynomial";
   const t = root ? 6 : 3;
   const xyz = { X: 0, Y: 0, Z: 0 };
+  // Every pixel when the region is small; otherwise a random pick (a regular stride could beat with
+  // the yarn's twist), read in memory order so that a large photo is walked once, not hopped about.
+  const pick = new Int32Array(n);
+  for (let i = 0; i < n; i++) pick[i] = n === total ? i : Math.floor(random() * total);
+  if (n < total) pick.sort();
   for (let i = 0; i < n; i++) {
-    // Every pixel when the region is small; otherwise a random pick (a regular stride could beat with the yarn's twist).
-    const p = (n === total ? i : Math.floor(random() * total)) * channels;
+    const k = pick[i];
+    const row = Math.floor(k / rect.width);
+    const p = ((rect.y + row) * width + rect.x + (k - row * rect.width)) * channels;
     const r = lr[pixels[p]], g = lg[pixels[p + 1]], b = lb[pixels[p + 2]];
     if (fit) {
       // The fit's own formula (calibration/fit.ts predictXyz), inlined: no allocation per pixel.

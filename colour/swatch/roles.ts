@@ -13,7 +13,9 @@
 //   chromaticity within 0.02 of D65 white, xy 0.3127, 0.3290);
 // - mixed: a small cluster (< 8 %) whose mean is α·A + β·B of two colours (α, β ≥ 0; linear XYZ,
 //   within 3 ΔE00): pixels straddling an edge, lit (α + β ≥ 0.8), their area split α : β; or, darker
-//   and within 5 ΔE00, shadowed edges, left out as shadow.
+//   and within 5 ΔE00, shadowed edges, left out as shadow;
+// - deep gap: a small cluster (< 5 %) darker and duller than every colour is shadow too (so a
+//   black speckle must cover 5 % to be kept when colours surround it).
 // Bleed pixels count towards the area of the colour they belong to, never towards its colour.
 import { deltaE00 } from "../difference";
 import { labToLch, xyzToLab } from "../spaces";
@@ -75,6 +77,16 @@ export function classify(c: readonly ClusterSummary[]): Role[] {
     const mix = mixtureOf(c, role, m);
     if (mix) role[m] = mix.lit ? { kind: "mixed", of: mix.a, and: mix.b, share: mix.share } : { kind: "shadow", of: mix.a };
   }
+  // The deepest gaps of a many-coloured yarn: a small cluster darker and duller than every colour.
+  for (const m of bySize) {
+    if (role[m].kind !== "colour" || c[m].share >= DEEP_GAP_MAX_SHARE) continue;
+    const others = c.map((_, j) => j).filter((j) => j !== m && role[j].kind === "colour");
+    if (others.length === 0) continue;
+    const chroma = (j: number) => Math.hypot(c[j].lab.a, c[j].lab.b);
+    if (others.every((j) => c[j].xyz.Y > c[m].xyz.Y && chroma(j) > chroma(m))) {
+      role[m] = { kind: "shadow", of: others.reduce((p, q) => (c[q].share > c[p].share ? q : p)) };
+    }
+  }
   return role;
 }
 
@@ -117,6 +129,8 @@ function bleedSource(c: readonly ClusterSummary[], role: readonly Role[], m: num
 const SHADOW_FLOOR = 0.08;
 /** Clusters under this share may be edge mixtures of two colours [our choice]. */
 const MIXED_MAX_SHARE = 0.08;
+/** Deep-gap clusters are small [our choice]. */
+const DEEP_GAP_MAX_SHARE = 0.05;
 /** Glint clusters are small [our choice]. */
 const GLINT_MAX_SHARE = 0.05;
 

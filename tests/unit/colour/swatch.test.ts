@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { deltaE00 } from "@/colour/difference";
 import { labToXyz, linearToSrgb, srgbToLab, xyzToLab, xyzToLinearSrgb } from "@/colour/spaces";
 import {
-  classify, cropPixels, kmeans, LAB_WEIGHTS, paletteOf, readSwatch, seeded, type ClusterSummary, type ColourGroup,
+  classify, cropPixels, kmeans, LAB_WEIGHTS, paletteOf, readRegion, readSwatch, seeded, type ClusterSummary, type ColourGroup,
 } from "@/colour/swatch";
 import { renderYarn, seededRandom, type YarnSpec } from "@/colour/synthetic";
 import type { Lab, Xyz } from "@/colour/types";
@@ -161,6 +161,15 @@ describe("kmeans (k-means++ seeding)", () => {
       expect(d).toBeLessThan(0.3);
     }
     expect(Array.from(a.counts)).toEqual([300, 300, 300]);
+  });
+});
+
+describe("readRegion", () => {
+  it("reads a rectangle of a whole image in place exactly as readSwatch reads its copy", () => {
+    const { pixels } = yarn({ kind: "speckled", base: L(82, 2, 10), speckles: [{ lab: L(45, 55, -5), share: 0.15 }] }, 41, 300);
+    const image = { data: pixels, width: 300, height: 300, channels: 3 };
+    const rect = { x: 37, y: 52, width: 201, height: 173 };
+    expect(readRegion(image, rect)).toEqual(readSwatch(cropPixels(image, rect), 3));
   });
 });
 
