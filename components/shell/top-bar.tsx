@@ -5,13 +5,13 @@ import { Wordmark } from "./wordmark";
 export function TopBar({ studioName, userName }: { studioName?: string; userName: string }) {
   return (
     <header className="no-print border-b border-rule bg-paper">
-      <div className="mx-auto flex max-w-6xl items-center justify-between gap-3 px-4 py-2">
-        <div className="flex min-w-0 items-center gap-3">
+      <div className="mx-auto flex max-w-6xl items-center justify-between gap-1 px-4 py-2 sm:gap-3">
+        <div className="flex min-w-0 items-center sm:gap-3">
           <Wordmark className="shrink-0 [&>span]:hidden sm:[&>span]:inline" />
           {studioName && (
             <Link
               href="/studios"
-              className="flex min-h-11 min-w-0 items-center gap-1 rounded-md px-2 text-base font-medium hover:bg-sheet"
+              className="flex min-h-11 min-w-0 items-center gap-1 rounded-md px-1.5 text-base font-medium hover:bg-sheet sm:px-2"
               title="Switch studio"
             >
               <span className="truncate">{studioName}</span>
@@ -25,7 +25,7 @@ export function TopBar({ studioName, userName }: { studioName?: string; userName
           <NotificationBell />
           <Link
             href="/account"
-            className="flex min-h-11 items-center rounded-md px-2 text-sm text-ink-soft hover:bg-sheet"
+            className="flex min-h-11 min-w-11 items-center justify-center rounded-md text-sm text-ink-soft hover:bg-sheet"
             aria-label={`Account of ${userName}`}
           >
             <span className="flex h-8 w-8 items-center justify-center rounded-full border border-rule-strong bg-sheet font-medium text-ink">

@@ -47,7 +47,9 @@ export function MembersClient() {
                 <p className="font-medium">
                   {m.name} {m.userId === userId && <span className="text-sm font-normal text-ink-faint">(you)</span>}
                 </p>
-                <p className="text-sm text-ink-soft wrap-anywhere">{m.email}</p>
+                <p className="text-sm text-ink-soft wrap-break-word">
+                  <Address value={m.email} />
+                </p>
               </div>
               {manage ? (
                 <div className="flex items-end gap-2">
@@ -130,7 +132,9 @@ function Invitations({ studioId }: { studioId: string }) {
             {list.data.map((i) => (
               <li key={i.id} className="flex items-center justify-between gap-3 py-2">
                 <div className="min-w-0">
-                  <p className="wrap-anywhere">{i.email}</p>
+                  <p className="wrap-break-word">
+                    <Address value={i.email} />
+                  </p>
                   <p className="text-sm text-ink-soft">
                     {i.role} · until {new Date(i.expiresAt).toLocaleDateString()}
                   </p>
@@ -144,5 +148,18 @@ function Invitations({ studioId }: { studioId: string }) {
         </>
       )}
     </Sheet>
+  );
+}
+
+/** An e-mail address that, when it must wrap on a narrow screen, breaks after the "@" first. */
+function Address({ value }: { value: string }) {
+  const at = value.lastIndexOf("@");
+  if (at < 0) return <>{value}</>;
+  return (
+    <>
+      {value.slice(0, at + 1)}
+      <wbr />
+      {value.slice(at + 1)}
+    </>
   );
 }
