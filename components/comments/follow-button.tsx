@@ -2,22 +2,27 @@
 
 import { useStudio } from "@/components/studio/studio-context";
 import { Button } from "@/components/ui/button";
-import { useFollow, useSetFollow } from "./use-comments";
+import { type FollowTarget, useFollow, useSetFollow } from "./use-comments";
 
-/** Follow or stop following a trial: followers hear about its comments, layers and readings. */
-export function FollowButton({ trialId }: { trialId: string }) {
+const WHAT: Record<FollowTarget, string> = {
+  trial: "new comments, layers and readings here",
+  colourway: "new lots and changes to this colourway",
+};
+
+/** Follow or stop following a trial or a colourway: followers get a notification when something happens there. */
+export function FollowButton({ trialId, colourwayId }: { trialId?: string; colourwayId?: string }) {
   const { studioId } = useStudio();
-  const status = useFollow(studioId, trialId);
-  const set = useSetFollow(studioId, trialId);
+  const [type, id]: [FollowTarget, string] = colourwayId ? ["colourway", colourwayId] : ["trial", trialId ?? ""];
+  const status = useFollow(studioId, type, id);
+  const set = useSetFollow(studioId, type, id);
   if (!status.data) return null;
   const following = status.data.following;
   return (
     <Button
       variant={following ? "plain" : "quiet"}
-      aria-pressed={following}
       disabled={set.isPending}
       onClick={() => set.mutate(!following)}
-      title={following ? "You hear about new comments, layers and readings here. Tap to stop." : "Hear about new comments, layers and readings here."}
+      title={following ? `You hear about ${WHAT[type]}. Tap to stop.` : `Hear about ${WHAT[type]}.`}
     >
       {following ? "Following" : "Follow"}
     </Button>

@@ -23,8 +23,10 @@ export interface CommentDto {
   canDelete: boolean;
 }
 
+export type FollowTarget = "trial" | "colourway";
+
 export interface FollowStatus {
-  targetType: "trial" | "colourway";
+  targetType: FollowTarget;
   targetId: string;
   following: boolean;
   followers: number;
@@ -34,7 +36,8 @@ export const commentKeys = {
   thread: (studioId: string, trialId: string, layerId?: string) =>
     ["studios", studioId, "trials", trialId, "comments", layerId ?? "all"] as const,
   allThreads: (studioId: string, trialId: string) => ["studios", studioId, "trials", trialId, "comments"] as const,
-  follow: (studioId: string, trialId: string) => ["studios", studioId, "follows", "trial", trialId] as const,
+  follow: (studioId: string, targetId: string, targetType: FollowTarget = "trial") =>
+    ["studios", studioId, "follows", targetType, targetId] as const,
 };
 
 const base = (studioId: string, trialId: string) => `/api/studios/${studioId}/trials/${trialId}/comments`;
@@ -83,18 +86,18 @@ export function useDeleteComment(studioId: string, trialId: string) {
   });
 }
 
-export function useFollow(studioId: string, trialId: string) {
+export function useFollow(studioId: string, targetType: FollowTarget, targetId: string) {
   return useQuery({
-    queryKey: commentKeys.follow(studioId, trialId),
-    queryFn: () => api<FollowStatus>(`/api/studios/${studioId}/follows/trial/${trialId}`),
+    queryKey: commentKeys.follow(studioId, targetId, targetType),
+    queryFn: () => api<FollowStatus>(`/api/studios/${studioId}/follows/${targetType}/${targetId}`),
   });
 }
 
-export function useSetFollow(studioId: string, trialId: string) {
+export function useSetFollow(studioId: string, targetType: FollowTarget, targetId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (follow: boolean) =>
-      api<FollowStatus>(`/api/studios/${studioId}/follows/trial/${trialId}`, { method: follow ? "PUT" : "DELETE" }),
-    onSuccess: (status) => qc.setQueryData(commentKeys.follow(studioId, trialId), status),
+      api<FollowStatus>(`/api/studios/${studioId}/follows/${targetType}/${targetId}`, { method: follow ? "PUT" : "DELETE" }),
+    onSuccess: (status) => qc.setQueryData(commentKeys.follow(studioId, targetId, targetType), status),
   });
 }
