@@ -10,13 +10,15 @@ import { FollowButton } from "./follow-button";
 import { type CommentDto, useAddComment, useComments, useDeleteComment, useEditComment } from "./use-comments";
 
 /**
- * The conversation about a trial (or one of its layers): the comments, oldest first, a follow
- * button and the editor. Self-contained: drop it at the bottom of a trial page.
+ * The conversation about a trial (or one of its layers or photos): the comments, oldest first, a
+ * follow button and the editor. Self-contained: drop it at the bottom of a trial page.
  */
-export function CommentThread({ trialId, layerId }: { trialId: string; layerId?: string }) {
+export function CommentThread({ trialId, layerId, photoId }: { trialId: string; layerId?: string; photoId?: string }) {
   const { studioId, userId } = useStudio();
   const canWrite = useCan("comment.write");
-  const thread = useComments(studioId, trialId, layerId);
+  const thread = useComments(studioId, trialId, { layerId, photoId });
+  const scoped = Boolean(layerId || photoId);
+  const headingId = `comments-${layerId ?? photoId ?? trialId}`;
   const add = useAddComment(studioId, trialId);
   const edit = useEditComment(studioId, trialId);
   const remove = useDeleteComment(studioId, trialId);
@@ -46,9 +48,9 @@ export function CommentThread({ trialId, layerId }: { trialId: string; layerId?:
 
   const comments = thread.data ?? [];
   return (
-    <section aria-labelledby={`comments-${layerId ?? trialId}`} className="mt-8">
+    <section aria-labelledby={headingId} className="mt-8">
       <SectionTitle action={<FollowButton trialId={trialId} />}>
-        <span id={`comments-${layerId ?? trialId}`}>{layerId ? "Comments on this layer" : "Comments"}</span>
+        <span id={headingId}>{layerId ? "Comments on this layer" : photoId ? "Comments on this photo" : "Comments"}</span>
       </SectionTitle>
 
       {thread.isError && <Notice tone="danger">Could not load the comments. {thread.error.message}</Notice>}
@@ -65,7 +67,7 @@ export function CommentThread({ trialId, layerId }: { trialId: string; layerId?:
               key={c.id}
               comment={c}
               highlighted={c.id === target}
-              showLayer={!layerId}
+              showLayer={!scoped}
               onReply={canWrite ? reply : undefined}
               onSave={(x, body) => edit.mutateAsync({ id: x.id, body, version: x.version })}
               onRemove={(x) => remove.mutateAsync({ id: x.id, version: x.version })}
@@ -77,11 +79,11 @@ export function CommentThread({ trialId, layerId }: { trialId: string; layerId?:
       {canWrite && (
         <div ref={formRef} className="mt-4">
           <CommentEditor
-            label={layerId ? "Comment on this layer" : "Write a comment"}
+            label={layerId ? "Comment on this layer" : photoId ? "Comment on this photo" : "Write a comment"}
             submitLabel="Post comment"
             clearOnSubmit
             onEditor={onEditor}
-            onSubmit={(body) => add.mutateAsync({ body, layerId: layerId ?? null })}
+            onSubmit={(body) => add.mutateAsync({ body, layerId: layerId ?? null, photoId: photoId ?? null })}
           />
         </div>
       )}

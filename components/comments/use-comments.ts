@@ -33,8 +33,8 @@ export interface FollowStatus {
 }
 
 export const commentKeys = {
-  thread: (studioId: string, trialId: string, layerId?: string) =>
-    ["studios", studioId, "trials", trialId, "comments", layerId ?? "all"] as const,
+  thread: (studioId: string, trialId: string, scope: { layerId?: string; photoId?: string } = {}) =>
+    ["studios", studioId, "trials", trialId, "comments", scope.layerId ?? scope.photoId ?? "all"] as const,
   allThreads: (studioId: string, trialId: string) => ["studios", studioId, "trials", trialId, "comments"] as const,
   follow: (studioId: string, targetId: string, targetType: FollowTarget = "trial") =>
     ["studios", studioId, "follows", targetType, targetId] as const,
@@ -42,10 +42,12 @@ export const commentKeys = {
 
 const base = (studioId: string, trialId: string) => `/api/studios/${studioId}/trials/${trialId}/comments`;
 
-export function useComments(studioId: string, trialId: string, layerId?: string) {
+/** The thread of a trial, or of one of its layers or photos. */
+export function useComments(studioId: string, trialId: string, scope: { layerId?: string; photoId?: string } = {}) {
+  const q = scope.layerId ? `?layerId=${scope.layerId}` : scope.photoId ? `?photoId=${scope.photoId}` : "";
   return useQuery({
-    queryKey: commentKeys.thread(studioId, trialId, layerId),
-    queryFn: () => api<CommentDto[]>(`${base(studioId, trialId)}${layerId ? `?layerId=${layerId}` : ""}`),
+    queryKey: commentKeys.thread(studioId, trialId, scope),
+    queryFn: () => api<CommentDto[]>(`${base(studioId, trialId)}${q}`),
     refetchInterval: 60_000,
   });
 }
@@ -62,7 +64,7 @@ function useInvalidateThreads(studioId: string, trialId: string) {
 export function useAddComment(studioId: string, trialId: string) {
   const invalidate = useInvalidateThreads(studioId, trialId);
   return useMutation({
-    mutationFn: (input: { body: unknown; layerId?: string | null }) =>
+    mutationFn: (input: { body: unknown; layerId?: string | null; photoId?: string | null }) =>
       api<CommentDto>(base(studioId, trialId), { method: "POST", body: input }),
     onSuccess: invalidate,
   });

@@ -4,6 +4,7 @@
 // while authors and owners remove.
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { CommentSchema } from "@/entities/comment";
+import { PhotoSchema } from "@/entities/photo";
 import { getEm, getOrm } from "@/lib/db";
 import * as commentsRoute from "@/app/api/studios/[studioId]/trials/[trialId]/comments/route";
 import * as commentRoute from "@/app/api/studios/[studioId]/trials/[trialId]/comments/[commentId]/route";
@@ -178,6 +179,24 @@ describe("studio boundaries", () => {
     // ?layerId= keeps only that layer's thread.
     const onLayer = await commentsRoute.GET(new Request(`http://127.0.0.1/x?layerId=${trial.layerIds[0]}`), { params: Promise.resolve(tp()) });
     expect((await onLayer.json()).map((c: { id: string }) => c.id)).toEqual([ok.json.id]);
+  });
+
+  it("a photo must be one of this trial's; then the comment is about it", async () => {
+    const other = await makeTrial(studio.id, dyer, "Third trial");
+    const em = await getEm();
+    const photo = (trialId: string) =>
+      em.create(PhotoSchema, { studio: studio.id, trial: trialId, kind: "final", uploadedBy: dyer.id, status: "ready", uploadKey: `test/${trialId}` });
+    const theirs = photo(other.id);
+    const ours = photo(trial.id);
+    await em.flush();
+    actAs(guest);
+    const refused = await post({ body: doc(text("on a photo")), photoId: theirs.id });
+    expect(refused.status).toBe(422);
+    expect(refused.json.fields.photoId).toMatch(/photo of this trial/);
+    const ok = await post({ body: doc(text("lovely light in this one")), photoId: ours.id });
+    expect([ok.status, ok.json.photoId]).toEqual([201, ours.id]);
+    const res = await commentsRoute.GET(new Request(`http://127.0.0.1/x?photoId=${ours.id}`), { params: Promise.resolve(tp()) });
+    expect((await res.json()).map((c: { id: string }) => c.id)).toEqual([ok.json.id]);
   });
 });
 
