@@ -102,15 +102,22 @@ export function BaseForm({ studioId, base, canArchive, onDone }: { studioId: str
         )}
       </fieldset>
 
-      {warnings.length > 0 && (
+      {warnings.some((w) => w.level === "warning") && (
         <Notice tone="caution">
           <p className="font-medium">With acid dyes</p>
           <ul className="mt-1 list-disc space-y-1 pl-5">
-            {warnings.map((w) => (
+            {warnings.filter((w) => w.level === "warning").map((w) => (
               <li key={w.kind}>{w.message}</li>
             ))}
           </ul>
         </Notice>
+      )}
+      {warnings.some((w) => w.level === "note") && (
+        <ul className="space-y-1 text-sm text-ink-soft">
+          {warnings.filter((w) => w.level === "note").map((w) => (
+            <li key={w.kind}>{w.message}</li>
+          ))}
+        </ul>
       )}
 
       <CheckRow label="Superwash" hint="Treated so it does not felt in the wash." {...register("superwash")} />

@@ -121,8 +121,7 @@ export function BasesPanel() {
       )}
       {bases.data && bases.data.length > 0 && (
         <>
-          <Toolbar>
-            <SearchBox label="Search" placeholder="Name or notes" value={q} onChange={setQ} />
+          <Toolbar search={<SearchBox label="Search" placeholder="Name or notes" value={q} onChange={setQ} />} active={Object.values(filters).filter(Boolean).length}>
             <FilterSelect label="Fibre" value={filters.fibres} onChange={(v) => setFilters({ ...filters, fibres: v })} options={FIBRE_OPTIONS.map((f) => ({ value: f, label: f }))} allLabel="Any fibre" />
             <FilterSelect label="Weight" value={filters.weightClass} onChange={(v) => setFilters({ ...filters, weightClass: v })} options={WEIGHT_CLASS_OPTIONS.map((w) => ({ value: w, label: WEIGHT_CLASS_LABELS[w] }))} allLabel="Any weight" />
             <FilterSelect

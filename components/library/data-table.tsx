@@ -88,7 +88,7 @@ export function DataTable<T>(props: DataTableProps<T>) {
                         key={h.id}
                         scope="col"
                         aria-sort={dir === "asc" ? "ascending" : dir === "desc" ? "descending" : undefined}
-                        className={`px-2 py-2 text-sm font-medium text-ink-soft ${h.column.columnDef.meta?.cellClass ?? ""}`}
+                        className={`px-2 py-2 text-sm font-medium whitespace-nowrap text-ink-soft ${h.column.columnDef.meta?.cellClass ?? ""}`}
                       >
                         {h.column.getCanSort() ? (
                           <button

@@ -103,8 +103,7 @@ export function DyesPanel() {
       )}
       {dyes.data && dyes.data.length > 0 && (
         <>
-          <Toolbar>
-            <SearchBox label="Search" placeholder="Name, Colour Index or notes" value={q} onChange={setQ} />
+          <Toolbar search={<SearchBox label="Search" placeholder="Name, Colour Index or notes" value={q} onChange={setQ} />} active={Object.values(filters).filter(Boolean).length}>
             <FilterSelect label="Class" value={filters.dyeClass} onChange={(v) => setFilters({ ...filters, dyeClass: v })} options={DYE_CLASS_OPTIONS.map((c) => ({ value: c, label: DYE_CLASS_LABELS[c] }))} allLabel="Any class" />
             <FilterSelect label="Form" value={filters.form} onChange={(v) => setFilters({ ...filters, form: v })} options={[{ value: "powder", label: "Powder" }, { value: "liquid", label: "Liquid" }]} allLabel="Either" />
           </Toolbar>

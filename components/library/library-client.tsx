@@ -1,6 +1,7 @@
 "use client";
 
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { useSyncExternalStore } from "react";
 import { useCan } from "@/components/studio/studio-context";
 import { BasesPanel } from "./bases-panel";
 import { DyesPanel } from "./dyes-panel";
@@ -16,11 +17,22 @@ const TABS = [
 ] as const;
 type TabId = (typeof TABS)[number]["id"];
 
+const noSubscribe = () => () => {};
+/**
+ * False on the server and while hydrating, true after. The device's kept query cache can be
+ * restored before this page hydrates, so the lists wait for it: the first client render then
+ * matches the server's HTML.
+ */
+function useHydrated(): boolean {
+  return useSyncExternalStore(noSubscribe, () => true, () => false);
+}
+
 export function LibraryClient() {
   const params = useSearchParams();
   const router = useRouter();
   const pathname = usePathname();
   const canEdit = useCan("library.edit");
+  const hydrated = useHydrated();
   const asked = params.get("tab");
   const tab: TabId = TABS.some((t) => t.id === asked) ? (asked as TabId) : "bases";
   const active = TABS.find((t) => t.id === tab)!;
@@ -65,7 +77,7 @@ export function LibraryClient() {
         ))}
       </div>
       <section id="library-panel" role="tabpanel" aria-labelledby={`library-tab-${tab}`}>
-        <active.Panel />
+        {hydrated ? <active.Panel /> : <p className="py-6 text-ink-faint">Loading the library…</p>}
       </section>
     </div>
   );

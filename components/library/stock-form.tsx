@@ -80,10 +80,10 @@ export function StockForm({
       </Select>
       {dye && (
         <Notice tone="caution">
-          <p>
-            Dye powder can sensitise lungs and skin: wet it before stirring or wear a respirator rated for fine dust, and keep gloves on.
-            Label the jar and keep it from children, pets and food: stock solutions look like drinks.
-          </p>
+          {dye.form === "powder" && (
+            <p>Dye powder can sensitise lungs and skin: wet it before stirring or wear a respirator rated for fine dust, and keep gloves on.</p>
+          )}
+          <p>Label the jar and keep it from children, pets and food: stock solutions look like drinks.</p>
           <p className="mt-1 text-ink-soft">The dye&apos;s safety data sheet, local rules and licensed practice come first.</p>
           <SdsLink url={dye.sdsUrl} name={dye.name} />
         </Notice>

@@ -47,9 +47,12 @@ export function StocksPanel() {
         filterFn: (row, _id, v: string) => row.original.dye.id === v,
         meta: { label: "Dye", sortWords: ["A–Z", "Z–A"] },
         cell: ({ row }) => (
-          <div className="flex min-w-36 items-start gap-2">
+          <div className="flex min-w-40 items-start gap-2">
             <Swatch hex={row.original.dye.displayHex} />
-            <span className="font-medium">{row.original.dye.name}</span>
+            <div>
+              <p className="font-medium">{row.original.dye.name}</p>
+              {row.original.notes && <p className="line-clamp-2 text-sm text-ink-soft">{row.original.notes}</p>}
+            </div>
           </div>
         ),
       },
@@ -125,8 +128,7 @@ export function StocksPanel() {
       )}
       {stocks.data && stocks.data.length > 0 && (
         <>
-          <Toolbar>
-            <SearchBox label="Search" placeholder="Dye, lot or notes" value={q} onChange={setQ} />
+          <Toolbar search={<SearchBox label="Search" placeholder="Dye, lot or notes" value={q} onChange={setQ} />} active={Object.values(filters).filter(Boolean).length}>
             <FilterSelect label="Dye" value={filters.dye} onChange={(v) => setFilters({ ...filters, dye: v })} options={(dyes.data ?? []).map((d) => ({ value: d.id, label: d.name }))} allLabel="Any dye" />
             <FilterSelect label="Age" value={filters.age} onChange={(v) => setFilters({ ...filters, age: v })} options={[{ value: "true", label: "Past shelf life" }, { value: "false", label: "Within shelf life" }]} allLabel="Any age" />
             <FilterSelect
@@ -171,7 +173,7 @@ export function StocksPanel() {
                 </div>
                 {s.powderLot && <p className="text-sm text-ink-soft">Powder lot <span className="font-mono">{s.powderLot}</span></p>}
                 {s.notes && <p className="text-sm text-ink-soft">{s.notes}</p>}
-                <SdsLink url={s.dye.sdsUrl} name={s.dye.name} />
+                {s.dye.sdsUrl && <SdsLink url={s.dye.sdsUrl} name={s.dye.name} />}
               </div>
             )}
           />

@@ -1,18 +1,34 @@
 "use client";
 
-import { useId } from "react";
+import { useId, useState } from "react";
+import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 
-// The row of search and filter controls above each library list. Wraps on a phone.
+// Search and filter controls above each library list. On a phone the filters fold away behind
+// one button (showing how many are set), so the list starts near the top of the screen.
 
-export function Toolbar({ children }: { children: React.ReactNode }) {
-  return <div className="mb-3 flex flex-wrap items-end gap-3">{children}</div>;
+export function Toolbar({ search, active, children }: { search: React.ReactNode; active: number; children: React.ReactNode }) {
+  const [open, setOpen] = useState(false);
+  const id = useId();
+  return (
+    <div className="mb-3 space-y-3 lg:flex lg:flex-wrap lg:items-end lg:gap-3 lg:space-y-0">
+      <div className="flex items-end gap-2 lg:flex-[2_1_14rem]">
+        {search}
+        <Button variant="plain" className="shrink-0 lg:hidden" aria-expanded={open} aria-controls={id} onClick={() => setOpen(!open)}>
+          Filters{active > 0 ? ` · ${active}` : ""}
+        </Button>
+      </div>
+      <div id={id} className={`${open ? "flex" : "hidden"} flex-wrap items-end gap-3 lg:contents`}>
+        {children}
+      </div>
+    </div>
+  );
 }
 
 export function SearchBox({ value, onChange, label, placeholder }: { value: string; onChange: (v: string) => void; label: string; placeholder: string }) {
   const id = useId();
   return (
-    <div className="min-w-0 flex-[2_1_14rem]">
+    <div className="min-w-0 flex-1">
       <label htmlFor={id} className="block text-sm font-medium text-ink-soft">
         {label}
       </label>

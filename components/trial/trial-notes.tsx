@@ -19,7 +19,9 @@ export function TrialNotes({ notes, canEdit, onSave }: { notes: Doc | null; canE
     immediatelyRender: false,
     editorProps: {
       attributes: {
-        class: "min-h-24 [&_ul]:list-disc [&_ul]:pl-6 [&_ol]:list-decimal [&_ol]:pl-6 [&_h3]:text-lg [&_h3]:font-serif [&_p]:my-1 [&_a]:underline rounded-md border border-rule-strong bg-sheet px-3 py-2 focus:outline-none focus:border-accent",
+        class: `min-h-24 [&_ul]:list-disc [&_ul]:pl-6 [&_ol]:list-decimal [&_ol]:pl-6 [&_h3]:text-lg [&_h3]:font-serif [&_p]:my-1 [&_a]:underline focus:outline-none ${
+          canEdit ? "rounded-md border border-rule-strong bg-sheet px-3 py-2 focus:border-accent" : ""
+        }`,
         "aria-label": "Trial notes",
         role: "textbox",
         "aria-multiline": "true",

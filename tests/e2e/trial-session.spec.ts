@@ -2,7 +2,7 @@
 // over-dye with amounts in kitchen measures, run a steam timer to the end (page clock mocked),
 // keep editing while the connection is down, and find every edit on the server afterwards.
 // A guest reads the same page without a single write control.
-import { type Locator, type Page, expect, test } from "@playwright/test";
+import { type Locator, type Page, expect, request as apiRequest, test } from "@playwright/test";
 import { authFile, layoutFaults, shot } from "./helpers";
 
 // Exact US customary measures (NIST Handbook 44, Appendix C): 1 tsp = 4.92892159375 ml,
@@ -200,6 +200,32 @@ test.describe("as the dyer", () => {
       expect(after.layers[1].observations).toBe("Rosehip patches stayed where rubbed");
       expect(after.layers[1].dyes[0].entered).toEqual({ value: 1, unit: "tbsp" });
       await shot(page, info, "trial-synced");
+
+      // ---- a clash: offline, the dyer rewrites layer 1's note while the owner saves another
+      await context.setOffline(true);
+      await layer1.getByRole("button", { name: "Change what you saw" }).click();
+      await page.getByLabel("What you see").fill("Green tips, teal body, no white left");
+      await page.getByRole("button", { name: "Keep note" }).click();
+      const owner = await apiRequest.newContext({ baseURL: info.project.use.baseURL, storageState: authFile("owner") });
+      const current = await (await owner.get(`/api/studios/${sid}/trials/${trialId}`)).json();
+      const ownerSave = await owner.patch(`/api/studios/${sid}/trials/${trialId}/layers/${current.layers[0].id}`, {
+        data: { version: current.layers[0].version, observations: "Owner: tips look more yellow than green" },
+      });
+      expect(ownerSave.ok()).toBe(true);
+      await context.setOffline(false);
+      // Refused with 409, and the dyer's words stay on screen to apply again, not dropped.
+      const clash = page.getByRole("region", { name: "A change that was not saved" });
+      await expect(clash).toContainText("someone else changed this first");
+      await expect(clash).toContainText("Green tips, teal body, no white left");
+      await shot(page, info, "conflict");
+      let onServer = await (await owner.get(`/api/studios/${sid}/trials/${trialId}`)).json();
+      expect(onServer.layers[0].observations).toBe("Owner: tips look more yellow than green");
+      await clash.getByRole("button", { name: "Apply my values again" }).click();
+      await expect(clash).toHaveCount(0);
+      await expect(page.getByText(/Waiting to send/)).toHaveCount(0, { timeout: 60_000 });
+      onServer = await (await owner.get(`/api/studios/${sid}/trials/${trialId}`)).json();
+      expect(onServer.layers[0].observations).toBe("Green tips, teal body, no white left");
+      await owner.dispose();
     } finally {
       await page.request.patch("/api/account", { data: { unitSystem: before.unitSystem, temperatureUnit: before.temperatureUnit } });
     }

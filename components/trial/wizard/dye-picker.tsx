@@ -84,7 +84,8 @@ export function DyePicker({
         {loading && <p className="text-ink-soft">Reading the library…</p>}
         {!loading && dyes.length === 0 && <p className="text-ink-soft">The library has no dyes yet: add them under Library first.</p>}
         <div className="grid grid-cols-2 gap-2">
-          {dyes.map((d) => (
+          {/* Dyes and stocks arrive together, so a picked dye finds its stock at once. */}
+          {!loading && dyes.map((d) => (
             <button
               key={d.id}
               type="button"
