@@ -77,8 +77,8 @@ export function MeasureClient({ trialId, photoId }: { trialId: string; photoId: 
           <p role="status" className="font-medium">{instruction}</p>
           <div className="flex flex-wrap gap-2">
             <Button variant="plain" onClick={() => { setCorners([]); setSwatch([]); }}>Start over</Button>
-            <Button variant="plain" aria-label="Zoom out" onClick={() => setZoom((z) => Math.max(0, z - 1))} disabled={zoom === 0}>−</Button>
-            <Button variant="plain" aria-label="Zoom in" onClick={() => setZoom((z) => Math.min(ZOOMS.length - 1, z + 1))} disabled={zoom === ZOOMS.length - 1}>+</Button>
+            <Button variant="plain" className="min-w-12" aria-label="Zoom out" onClick={() => setZoom((z) => Math.max(0, z - 1))} disabled={zoom === 0}>−</Button>
+            <Button variant="plain" className="min-w-12" aria-label="Zoom in" onClick={() => setZoom((z) => Math.min(ZOOMS.length - 1, z + 1))} disabled={zoom === ZOOMS.length - 1}>+</Button>
           </div>
         </Sheet>
       )}
