@@ -12,7 +12,7 @@ import {
   type Reading,
   type Studio,
 } from "@/entities";
-import { badRequest, notFound } from "@/lib/errors";
+import { badRequest, HttpError, notFound } from "@/lib/errors";
 import type { SessionUser } from "@/lib/auth/session";
 import { fibreClassOf } from "./fibre-class";
 
@@ -143,4 +143,29 @@ export async function compareTrial(em: EntityManager, studio: Studio, trialId: s
       verdict: p && r ? compareVerdict(labOf(p), labOf(r)) : null,
     };
   });
+}
+
+/**
+ * Records a layer's prediction when none is recorded yet (or, with `refresh`, records a fresh one
+ * while the layer is still unmeasured), so the trial keeps what the model said before the dyer
+ * measured the result. Quietly does nothing when no prediction can be made (no base reading, a
+ * dye without a profile): the page says why when the dyer asks.
+ */
+export async function ensurePrediction(
+  em: EntityManager,
+  studio: Studio,
+  user: SessionUser,
+  trialId: string,
+  layerId: string,
+  options: { refresh?: boolean } = {},
+): Promise<LayerPredictionDto | null> {
+  const measured = (await em.count(ReadingSchema, { studio, layer: layerId, photo: { kind: "after-layer" } })) > 0;
+  const recorded = (await em.count(LayerPredictionSchema, { studio, layer: layerId })) > 0;
+  if (recorded && (measured || !options.refresh)) return null;
+  try {
+    return await recordPrediction(em, studio, user, trialId, layerId);
+  } catch (e) {
+    if (e instanceof HttpError && e.status === 422) return null;
+    throw e;
+  }
 }

@@ -6,9 +6,11 @@ import * as profilesRoute from "@/app/api/studios/[studioId]/profiles/route";
 import * as refitRoute from "@/app/api/studios/[studioId]/profiles/refit/route";
 import * as predictionRoute from "@/app/api/studios/[studioId]/trials/[trialId]/layers/[layerId]/prediction/route";
 import * as comparisonRoute from "@/app/api/studios/[studioId]/trials/[trialId]/comparison/route";
+import * as layersRoute from "@/app/api/studios/[studioId]/trials/[trialId]/layers/route";
+import * as layerRoute from "@/app/api/studios/[studioId]/trials/[trialId]/layers/[layerId]/route";
 import { deltaE00, reflectanceToLab } from "@/colour";
 import { SYNTHETIC_BASES, syntheticDyeing, trueResult } from "@/colour/spectral/synthetic-dyeings";
-import { LayerSchema } from "@/entities";
+import { LayerPredictionSchema, LayerSchema } from "@/entities";
 import { getEm, getOrm } from "@/lib/db";
 import { actAs } from "../support/session";
 import { type Person, type StudioFixture, makeStudio, makeUser } from "../support/fixtures";
@@ -124,5 +126,46 @@ describe("predict, then compare", () => {
     expect((await call(predictionRoute.POST, "POST", { studioId: studio.id, trialId, layerId })).status).toBe(403);
     actAs(stranger);
     expect((await call(comparisonRoute.GET, "GET", { studioId: other.id, trialId })).status).toBe(404);
+  });
+
+  it("keeps what the model said when a layer is planned, refreshes it while unmeasured, never after", async () => {
+    actAs(dyer);
+    const trialId = await makeTrial(studio.id, { title: "Planned over-dye", authorId: dyer.id, baseId });
+    await makeReading(studio.id, trialId, dyer.id, white);
+    const predictionsOf = async (layerId: string) => (await getEm()).count(LayerPredictionSchema, { layer: layerId });
+    const body = { method: "immersion", dyes: [{ dyeId: dye.magenta, amount: { value: 0.5, unit: "dos" } }] };
+    const added = await call(layersRoute.POST, "POST", { studioId: studio.id, trialId }, { body });
+    expect(added.status, JSON.stringify(added.json)).toBe(201);
+    const layer = added.json.layers[0];
+    expect(await predictionsOf(layer.id)).toBe(1);
+    const first = await call(comparisonRoute.GET, "GET", { studioId: studio.id, trialId });
+    const half = first.json[0].prediction.lab;
+
+    // A deeper amount before dyeing: a fresh, darker prediction.
+    const deeper = { version: layer.version, dyes: [{ dyeId: dye.magenta, amount: { value: 2, unit: "dos" } }] };
+    const patched = await call(layerRoute.PATCH, "PATCH", { studioId: studio.id, trialId, layerId: layer.id }, { body: deeper });
+    expect(patched.status, JSON.stringify(patched.json)).toBe(200);
+    expect(await predictionsOf(layer.id)).toBe(2);
+    const second = await call(comparisonRoute.GET, "GET", { studioId: studio.id, trialId });
+    expect(second.json[0].prediction.lab.L).toBeLessThan(half.L - 5);
+
+    // Once measured, a later edit (here: the notes of what was seen) leaves the prediction alone.
+    const truth = reflectanceToLab(trueResult(SYNTHETIC_BASES.white, [{ dyeId: "magenta", dosPct: 2 }]));
+    await makeReading(studio.id, trialId, dyer.id, truth, { layerId: layer.id });
+    const measuredLayer = patched.json.layers[0];
+    const again = { version: measuredLayer.version, dyes: deeper.dyes, observations: "Deep raspberry." };
+    expect((await call(layerRoute.PATCH, "PATCH", { studioId: studio.id, trialId, layerId: layer.id }, { body: again })).status).toBe(200);
+    expect(await predictionsOf(layer.id)).toBe(2);
+    const cmp = await call(comparisonRoute.GET, "GET", { studioId: studio.id, trialId });
+    expect(cmp.json[0].verdict.verdict).toBe("close");
+  });
+
+  it("adds a layer without a prediction when none can be made", async () => {
+    actAs(dyer);
+    const trialId = await makeTrial(studio.id, { title: "No base measured", authorId: dyer.id, baseId });
+    const body = { method: "immersion", dyes: [{ dyeId: dye.magenta, amount: { value: 1, unit: "dos" } }] };
+    const added = await call(layersRoute.POST, "POST", { studioId: studio.id, trialId }, { body });
+    expect(added.status).toBe(201);
+    expect(await (await getEm()).count(LayerPredictionSchema, { layer: added.json.layers[0].id })).toBe(0);
   });
 });
