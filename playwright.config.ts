@@ -57,7 +57,8 @@ export default defineConfig({
     },
   ],
   webServer: {
-    command: `node node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${PORT}`,
+    // A long keep-alive, so a test's request never reuses a socket the server is just closing (ECONNRESET).
+    command: `node node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${PORT} --keepAliveTimeout 120000`,
     url: `${BASE_URL}/api/health`,
     reuseExistingServer: false,
     timeout: 60_000,

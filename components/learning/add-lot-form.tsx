@@ -32,7 +32,7 @@ export function AddLotForm({ studioId, colourwayId }: { studioId: string; colour
         e.preventDefault();
         add.mutate(
           { trialId, code, skeins: Number(skeins), fibreWeightG: Number(weight), readingId: chosenReading || null },
-          { onSuccess: () => { setCode(""); setReadingId(""); } },
+          { onSuccess: () => { setCode(""); setReadingId(""); setTrialId(""); } },
         );
       }}
     >

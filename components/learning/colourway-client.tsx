@@ -45,12 +45,11 @@ export function ColourwayClient({ colourwayId }: { colourwayId: string }) {
             <PaletteBar palette={c.targetPalette.map((p) => ({ hex: hexOf(p.lab), share: p.share }))} />
           </div>
         )}
-        <p className="mt-3 text-sm text-ink-soft">
-          Proposed by {c.proposedBy} from{" "}
-          <Link className="text-accent underline" href={`/s/${studioId}/trials/${c.sourceTrialId}`}>
-            its trial
+        <p className="mt-3 flex flex-wrap items-center gap-x-2 text-sm text-ink-soft">
+          <span>Proposed by {c.proposedBy}</span>
+          <Link className="inline-flex min-h-11 items-center text-accent underline underline-offset-4" href={`/s/${studioId}/trials/${c.sourceTrialId}`}>
+            Open the trial it came from
           </Link>
-          .
         </p>
         {canApprove && (
           <div className="mt-3 flex flex-wrap gap-2">

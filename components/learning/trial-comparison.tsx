@@ -17,7 +17,11 @@ export function TrialComparison({ trialId }: { trialId: string }) {
   const canPredict = useCan("prediction.run");
   const trial = useTrial(studioId, trialId);
   const photos = useTrialPhotos(studioId, trialId);
-  const cmp = useComparison(studioId, trialId);
+  const basis = [
+    ...(trial.data?.layers ?? []).map((l) => `${l.id}:${l.version}`),
+    ...(photos.data?.readings ?? []).map((r) => r.id),
+  ].join(",");
+  const cmp = useComparison(studioId, trialId, basis);
   const record = useRecordPrediction(studioId, trialId);
   if (!trial.data || !cmp.data) return null;
   if (!trial.data.layers.length) return null;
@@ -71,9 +75,10 @@ export function TrialComparison({ trialId }: { trialId: string }) {
                   {c.verdict.differences.length > 0 && <span className="text-ink-soft"> · measured is {c.verdict.differences.join(", ")}</span>}
                 </p>
               )}
-              {canPredict && (
+              {/* Once measured, a new prediction would come from profiles that have seen the result. */}
+              {canPredict && !c?.measured && (
                 <Button variant="plain" className="mt-2" disabled={record.isPending} onClick={() => record.mutate(l.id)}>
-                  {c?.prediction ? "Record the prediction again" : "Record prediction"}
+                  {c?.prediction ? "Predict again with today's profiles" : "Record a prediction"}
                 </Button>
               )}
             </li>

@@ -66,9 +66,14 @@ export function useAddLot(studioId: string, id: string) {
 }
 
 /** Per layer of a trial: the recorded prediction, the measured reading and the verdict. */
-export function useComparison(studioId: string, trialId: string) {
+/**
+ * Predicted against measured for a trial. `basis` names what the answer depends on (the layers with
+ * their versions, the readings), so a saved layer or a new reading fetches it afresh.
+ */
+export function useComparison(studioId: string, trialId: string, basis = "") {
   return useQuery({
-    queryKey: colourwayKeys.comparison(studioId, trialId),
+    queryKey: [...colourwayKeys.comparison(studioId, trialId), basis],
+    placeholderData: (previous) => previous,
     queryFn: () => api<LayerComparisonDto[]>(`/api/studios/${studioId}/trials/${trialId}/comparison`),
   });
 }

@@ -27,8 +27,12 @@ type State = { phase: "idle" } | { phase: "sending"; share: number; name: string
 /** Photo upload from a phone camera or a file, with progress and retry. */
 export function PhotoUploader({ studioId, trialId, layers }: { studioId: string; trialId: string; layers: LayerRef[] }) {
   const qc = useQueryClient();
-  const [kind, setKind] = useState<PhotoKind>(layers.length ? "after-layer" : "base");
-  const [layerId, setLayerId] = useState<string>(layers.at(-1)?.id ?? "");
+  // Until the dyer picks, the photo documents the newest layer (or the undyed base), following
+  // layers added while the page is open.
+  const [pickedKind, setKind] = useState<PhotoKind | null>(null);
+  const [pickedLayer, setLayerId] = useState<string | null>(null);
+  const kind: PhotoKind = pickedKind ?? (layers.length ? "after-layer" : "base");
+  const layerId = pickedLayer && layers.some((l) => l.id === pickedLayer) ? pickedLayer : (layers.at(-1)?.id ?? "");
   const [state, setState] = useState<State>({ phase: "idle" });
 
   const send = useCallback(

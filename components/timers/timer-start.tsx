@@ -34,7 +34,11 @@ export function TimerStart({
       <div className="flex flex-wrap gap-2">
         {first && (
           <Button variant="plain" disabled={start.isPending} onClick={() => go(first.label, first.minutes)}>
-            <span aria-hidden="true">⏱</span> {first.label} {first.minutes} min
+            <svg aria-hidden="true" viewBox="0 0 24 24" className="h-5 w-5" fill="none" stroke="currentColor" strokeWidth={2} strokeLinecap="round">
+              <circle cx="12" cy="13" r="8" />
+              <path d="M12 9v4l2.5 2.5M9.5 2.5h5M12 2.5V5" />
+            </svg>{" "}
+            {first.label} {first.minutes} min
           </Button>
         )}
         <Button variant="quiet" aria-expanded={more} onClick={() => setMore(!more)}>

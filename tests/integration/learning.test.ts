@@ -112,6 +112,10 @@ describe("predict, then compare", () => {
     expect(cmp.status).toBe(200);
     expect(cmp.json[0].verdict.de00).toBeCloseTo(err, 6);
     expect(cmp.json[0].verdict.verdict).toBe("close"); // ≤ 2 ΔE00, our product band
+    // The prediction made before the result was known is kept.
+    const late = await call(predictionRoute.POST, "POST", { studioId: studio.id, trialId, layerId });
+    expect(late.status).toBe(409);
+    expect(late.json.error).toMatch(/measured/);
   });
 
   it("names the dye without a profile instead of guessing", async () => {

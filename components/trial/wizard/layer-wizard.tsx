@@ -55,8 +55,11 @@ export function LayerWizard({ trialId, layerId, initialMethod }: { trialId: stri
   const [errors, setErrors] = useState<string[]>([]);
   // A dye picked with its amount typed counts as added when the dyer moves on (one tap fewer).
   const pendingDye = useRef<Omit<Draft["dyes"][number], "key"> | null>(null);
+  // The same dye as state, so the prediction follows the amount as it is typed.
+  const [typedDye, setTypedDye] = useState<Omit<Draft["dyes"][number], "key"> | null>(null);
   const onPendingDye = useCallback((d: Omit<Draft["dyes"][number], "key"> | null) => {
     pendingDye.current = d;
+    setTypedDye(d);
   }, []);
   const tempUnit = account.data?.temperatureUnit ?? "C";
   const system = account.data?.unitSystem ?? "metric";
@@ -92,6 +95,7 @@ export function LayerWizard({ trialId, layerId, initialMethod }: { trialId: stri
   const go = (n: number) => {
     const next = withTyped();
     pendingDye.current = null;
+    setTypedDye(null);
     setDraft(next);
     setStep(n);
     setErrors([]);
@@ -169,7 +173,12 @@ export function LayerWizard({ trialId, layerId, initialMethod }: { trialId: stri
         <LayerPrediction
           trialId={trialId}
           layerId={editing?.id}
-          layer={{ method: current.method, dyes: current.dyes.map((x) => ({ dyeId: x.dyeId, dosPct: previewDye(x, fibreG, ctx.dyes, ctx.stocks).dosPct })), coverage: current.coverage, gradient: current.gradient }}
+          layer={{
+            method: current.method,
+            dyes: [...current.dyes, ...(typedDye ? [{ ...typedDye, key: "typed" }] : [])].map((x) => ({ dyeId: x.dyeId, dosPct: previewDye(x, fibreG, ctx.dyes, ctx.stocks).dosPct })),
+            coverage: current.coverage,
+            gradient: current.gradient,
+          }}
           previousLayers={view.layers.slice(0, index)}
         />
       )}
