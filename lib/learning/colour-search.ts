@@ -46,7 +46,9 @@ export async function nearestReadings(em: EntityManager, studioId: string, targe
       .sort((p, q) => p.d - q.d || (p.x.id < q.x.id ? -1 : 1))
       .slice(0, k);
     const everything = r > 400 && rL > 100; // the box then holds every possible CIELAB colour
-    const settled = Math.min(rL / SL_MAX, de00LowerBound(r, c1)); // no colour outside the box is closer
+    // No colour outside the box is closer than this. A box spanning all of L* (0–100) leaves no
+    // colour outside it in L*, so that side sets no limit.
+    const settled = Math.min(rL > 100 ? Infinity : rL / SL_MAX, r > 400 ? Infinity : de00LowerBound(r, c1));
     if (everything || (scored.length === k && scored[k - 1].d < settled)) {
       const titles = await conn.execute<{ id: string; title: string }[]>(
         `select id, title from trials where id in (${scored.map(() => "?").join(",") || "null"})`,
@@ -64,13 +66,15 @@ export async function nearestReadings(em: EntityManager, studioId: string, targe
     }
     // With k candidates, jump straight to the box that settles their k-th difference (a larger box
     // can only lower it); with fewer, look twice as far.
+    const [lastL, last] = [rL, r];
     if (scored.length === k) {
       const d = scored[k - 1].d;
       rL = Math.max(rL, Math.min(d * SL_MAX * 1.001, 101));
       r = Math.max(r, Math.min(radiusFor(d, c1) * 1.001, 401));
-    } else {
-      rL *= 2;
-      r *= 2;
+    }
+    if (rL === lastL && r === last) {
+      rL = Math.min(rL * 2, 101);
+      r = Math.min(r * 2, 401);
     }
   }
 }

@@ -186,3 +186,29 @@ test("predict an over-dye, compare with the dyed skein, turn it into a colourway
   expect(pages, "the recipe card prints on one page").toBe(1);
   await page.emulateMedia({ media: "screen" });
 });
+
+test("the studio's dye profiles and the search by colour", async ({ page }, info) => {
+  const sid = await studioId(page);
+  await page.goto(`/s/${sid}/profiles`);
+  // The seed fits four profiles on wool from its twelve calibration dyeings, three per dye.
+  const wool = page.locator("section").filter({ has: page.getByRole("heading", { name: "On wool" }) });
+  for (const dye of ["Harbour Teal", "Marigold", "Rosehip", "Slate Black"]) {
+    await expect(wool.getByRole("listitem").filter({ hasText: dye })).toContainText(/\d+ dyeings · fits well/);
+  }
+  await shot(page, info, "learning-profiles");
+  if (info.project.name === "phone") expect(await layoutFaults(page)).toEqual([]);
+
+  // A teal typed in as L*a*b*: the nearest readings are the Harbour Teal dyeings, nearest first.
+  await page.goto(`/s/${sid}/find`);
+  await page.getByLabel("L*").fill("54");
+  await page.getByLabel("a*").fill("-16");
+  await page.getByLabel("b*").fill("-42");
+  const readings = page.locator("section").filter({ has: page.getByRole("heading", { name: "Nearest readings" }) });
+  await expect(readings.getByRole("link").first()).toContainText("Harbour Teal at 1 %");
+  const distances = await readings.getByText(/^ΔE00 /).allInnerTexts();
+  const values = distances.map((t) => Number(t.replace("ΔE00 ", "")));
+  expect(values.length).toBeGreaterThan(3);
+  expect([...values].sort((x, y) => x - y)).toEqual(values);
+  await shot(page, info, "learning-find");
+  if (info.project.name === "phone") expect(await layoutFaults(page)).toEqual([]);
+});

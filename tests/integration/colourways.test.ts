@@ -168,4 +168,24 @@ describe("find by colour", () => {
     const none = await searchRoute.GET(new Request("http://x/?limit=5"), { params: Promise.resolve({ studioId: studio.id }) });
     expect(none.status).toBe(422);
   });
+
+  // Regression: with the 10th match between ~16 and ~57 ΔE00 the a*b* box had reached its cap while
+  // its bound was still below the match, and the search never ended.
+  it("finishes when even the nearest matches are far away (dark readings, a mid-grey target)", async () => {
+    const sparse = await makeStudio("Colourways Sparse", [[dyer, "dyer"]]);
+    const sparseTrial = await makeTrial(sparse.id, { title: "Dark run", authorId: dyer.id });
+    const ids: string[] = [];
+    for (let i = 0; i < 12; i++) ids.push(await makeReading(sparse.id, sparseTrial, dyer.id, { L: 5 + i, a: i - 6, b: 6 - i }));
+    actAs(dyer);
+    const pale = { L: 58, a: 0, b: 0 };
+    const res = await searchRoute.GET(new Request(`http://x/?L=${pale.L}&a=${pale.a}&b=${pale.b}&limit=10`), { params: Promise.resolve({ studioId: sparse.id }) });
+    const body = await res.json();
+    expect(body.readings).toHaveLength(10);
+    expect(body.readings[9].de00).toBeGreaterThan(17); // no finite a*b* radius settles it (colour-bound.ts)
+    expect(body.readings[9].de00).toBeLessThan(57); // and the L* box does not span all of L*
+    const em = await getEm();
+    const all = await em.getConnection().execute<{ id: string; l: number; a: number; b: number }[]>("select id, l, a, b from readings where studio_id = ?", [sparse.id]);
+    const brute = all.map((r) => ({ id: r.id, d: deltaE00(pale, { L: r.l, a: r.a, b: r.b }) })).sort((x, y) => x.d - y.d || (x.id < y.id ? -1 : 1));
+    expect(body.readings.map((r: { id: string }) => r.id)).toEqual(brute.slice(0, 10).map((b) => b.id));
+  });
 });
