@@ -19,6 +19,8 @@ export default defineConfig({
     snapshot: false,
     emit: "ts",
   },
+  // pg-boss keeps its job tables in their own schema and migrates them itself (lib/jobs/boss.ts).
+  schemaGenerator: { ignoreSchema: ["pgboss"] },
   pool: { min: 0, max: 10 },
   debug: false,
 });

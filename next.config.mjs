@@ -6,6 +6,7 @@ const nextConfig = {
     "@mikro-orm/postgresql",
     "@mikro-orm/migrations",
     "sharp",
+    "pg-boss",
   ],
   poweredByHeader: false,
   // The build checks the app's own code; tests and scripts are checked by `npm run typecheck`.

@@ -17,6 +17,10 @@ const schema = z.object({
   MAIL_FAKE_URL: z.string().url().default("http://127.0.0.1:2580"),
   /** Notifications for one recipient within this many seconds leave as one mail. */
   MAIL_BATCH_SECONDS: z.coerce.number().int().min(0).max(86_400).default(120),
+  /** Seconds before the first retry of a failed mail (then doubled per attempt, at most an hour). */
+  MAIL_RETRY_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
+  /** "off" when a separate `npm run worker` runs the background jobs; otherwise the web server runs them. */
+  UNDERTONE_WORKER: z.enum(["on", "off"]).default("on"),
   /** POST /api/internal/outbox/flush: "on" or "off"; unset means on outside production. */
   OUTBOX_FLUSH_ROUTE: z.enum(["on", "off"]).optional(),
 });

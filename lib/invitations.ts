@@ -5,7 +5,7 @@ import { type Invitation, type Membership, type Role, type Studio, InvitationSch
 import { type User, UserSchema } from "@/entities/user";
 import { env } from "@/lib/env";
 import { conflict, forbidden, HttpError, notFound } from "@/lib/errors";
-import { sendMail } from "@/lib/mail";
+import { enqueueMail } from "@/lib/outbox";
 import type { InvitationInput } from "@/lib/schemas/studio";
 import { escapeHtml } from "@/lib/auth/sign-in-mail";
 import type { SessionUser } from "@/lib/auth/session";
@@ -53,6 +53,9 @@ export async function inviteMember(
   const existing = await em.findOne(MembershipSchema, { studio, user: { email: input.email } });
   if (existing) throw conflict(`${input.email} is already a member of this studio.`);
   const token = randomBytes(32).toString("base64url");
+  const url = `${env.APP_URL}/invite/${token}`;
+  // The mail is queued with the invitation: both are stored or neither, and a mail server that
+  // is down delays the mail instead of failing the invitation.
   const invitation = await em.transactional(async (tx) => {
     await tx.nativeUpdate(
       InvitationSchema,
@@ -67,15 +70,14 @@ export async function inviteMember(
       invitedBy: inviter.id,
       expiresAt: new Date(Date.now() + VALID_DAYS * 86_400_000),
     });
+    await enqueueMail(tx, {
+      to: input.email,
+      subject: `${inviter.name} invited you to ${studio.name} on Undertone`,
+      text: `${inviter.name} invited you to join ${studio.name} on Undertone as ${input.role}.\n\nAccept here: ${url}\n\nThe link works for ${VALID_DAYS} days.`,
+      html: `<p>${escapeHtml(inviter.name)} invited you to join <strong>${escapeHtml(studio.name)}</strong> on Undertone as ${input.role}.</p><p><a href="${escapeHtml(url)}">Accept the invitation</a></p><p style="color:#6b6259">The link works for ${VALID_DAYS} days.</p>`,
+    });
     await tx.flush();
     return inv;
-  });
-  const url = `${env.APP_URL}/invite/${token}`;
-  await sendMail({
-    to: input.email,
-    subject: `${inviter.name} invited you to ${studio.name} on Undertone`,
-    text: `${inviter.name} invited you to join ${studio.name} on Undertone as ${input.role}.\n\nAccept here: ${url}\n\nThe link works for ${VALID_DAYS} days.`,
-    html: `<p>${escapeHtml(inviter.name)} invited you to join <strong>${escapeHtml(studio.name)}</strong> on Undertone as ${input.role}.</p><p><a href="${escapeHtml(url)}">Accept the invitation</a></p><p style="color:#6b6259">The link works for ${VALID_DAYS} days.</p>`,
   });
   await em.populate(invitation, ["invitedBy"]);
   return invitationDto(invitation);

@@ -20,7 +20,13 @@ export function smtpOptions(url: string) {
 
 /** The one SMTP transport for this process. */
 export function mailTransport(): Transporter {
-  cache.__undertoneMail ??= nodemailer.createTransport(smtpOptions(env.SMTP_URL));
+  // A mail server that is down or stalls fails the send in seconds; the outbox retries it later.
+  cache.__undertoneMail ??= nodemailer.createTransport({
+    ...smtpOptions(env.SMTP_URL),
+    connectionTimeout: 10_000,
+    greetingTimeout: 10_000,
+    socketTimeout: 30_000,
+  });
   return cache.__undertoneMail;
 }
 

@@ -7,22 +7,30 @@ import { type User, UserSchema } from "@/entities/user";
 import { escapeHtml } from "@/lib/auth/sign-in-mail";
 import { getEm } from "@/lib/db";
 import { env } from "@/lib/env";
+import { enqueue } from "@/lib/jobs/boss";
 import { type OutgoingMail, sendMail } from "@/lib/mail";
 import { unsubscribeUrl } from "@/lib/notifications";
 
 // Mail that waits in the database until it is due. Notification mail for one recipient is
 // batched: the first item opens a window (MAIL_BATCH_SECONDS) and everything queued for that
 // person until it closes leaves as one message. A failed send stays queued and is retried with
-// a growing delay. flushOutbox runs on a timer in each server process (instrumentation.ts).
+// a growing delay. flushOutbox runs as the "outbox-flush" job (lib/jobs): queued in the same
+// transaction as the row for the time its batch is due, and every minute as a safety net.
+// Two flushers never send the same row (rows are locked while sent); a mail the SMTP server
+// accepted just before the database went away may be sent twice, never lost.
 
 export const MAX_ATTEMPTS = 8;
-const BACKOFF_BASE_SEC = 30;
 const BACKOFF_MAX_SEC = 3600;
 const BATCH_LIMIT = 200;
 
-/** Seconds to wait before retry number `attempts` (30 s, 1 min, 2 min … at most an hour). */
+/** Seconds to wait before retry number `attempts` (30 s, 1 min, 2 min … at most an hour; MAIL_RETRY_SECONDS sets the first). */
 export function backoffSeconds(attempts: number): number {
-  return Math.min(BACKOFF_MAX_SEC, BACKOFF_BASE_SEC * 2 ** Math.max(0, attempts - 1));
+  return Math.min(BACKOFF_MAX_SEC, env.MAIL_RETRY_SECONDS * 2 ** Math.max(0, attempts - 1));
+}
+
+/** Queues the flush job for `at`, inside em's transaction when there is one. */
+function wakeAt(em: EntityManager, at: Date) {
+  return enqueue(em, "outbox-flush", {}, { startAfter: at });
 }
 
 export interface NotificationMailItem {
@@ -43,6 +51,8 @@ export async function enqueueNotificationMail(em: EntityManager, item: Notificat
     { orderBy: { sendAfter: "asc" } },
   );
   const sendAfter = open?.sendAfter ?? new Date(now.getTime() + env.MAIL_BATCH_SECONDS * 1000);
+  // A new batch needs its flush; one that joins an open batch leaves with it.
+  if (!open) await wakeAt(em, sendAfter);
   return em.create(MailOutboxSchema, {
     user: item.user,
     to: item.user.email,
@@ -54,15 +64,17 @@ export async function enqueueNotificationMail(em: EntityManager, item: Notificat
   });
 }
 
-/** Queues a single mail that is not batched (sent on the next flush after `sendAfter`). */
-export function enqueueMail(em: EntityManager, mail: OutgoingMail & { user?: User | null; sendAfter?: Date }) {
+/** Queues a single mail that is not batched (sent by the flush at `sendAfter`, default now). */
+export async function enqueueMail(em: EntityManager, mail: OutgoingMail & { user?: User | null; sendAfter?: Date }) {
+  const sendAfter = mail.sendAfter ?? new Date();
+  await wakeAt(em, sendAfter);
   return em.create(MailOutboxSchema, {
     user: mail.user ?? null,
     to: mail.to,
     subject: mail.subject,
     text: mail.text,
     html: mail.html ?? null,
-    sendAfter: mail.sendAfter ?? new Date(),
+    sendAfter,
   });
 }
 
@@ -98,6 +110,14 @@ export interface FlushResult {
   failed: number;
   /** Rows dropped because their recipient turned mail off. */
   dropped: number;
+  /** When the earliest failed message is due again (null when none failed). */
+  nextAttemptAt: Date | null;
+}
+
+/** A failure of the connection to the SMTP server rather than of one message. */
+function serverUnreachable(e: unknown): boolean {
+  const code = (e as { code?: string } | null)?.code ?? "";
+  return ["ECONNECTION", "ETIMEDOUT", "ESOCKET", "EDNS", "ECONNREFUSED", "ECONNRESET", "EGREETING"].includes(code) || /ECONNREFUSED|ECONNRESET|ETIMEDOUT/.test(String(e));
 }
 
 export interface FlushOptions {
@@ -114,7 +134,7 @@ export async function flushOutbox(opts: FlushOptions = {}): Promise<FlushResult>
   const send = opts.send ?? sendMail;
   const em = await getEm();
   return em.transactional(async (tx) => {
-    const result: FlushResult = { messages: 0, rows: 0, failed: 0, dropped: 0 };
+    const result: FlushResult = { messages: 0, rows: 0, failed: 0, dropped: 0, nextAttemptAt: null };
     const lock = { lockMode: LockMode.PESSIMISTIC_PARTIAL_WRITE } as const;
     const open = { sentAt: null, attempts: { $lt: MAX_ATTEMPTS } };
     const due = await tx.find(
@@ -135,6 +155,8 @@ export async function flushOutbox(opts: FlushOptions = {}): Promise<FlushResult>
     const userIds = [...new Set([...due, ...joined].map((r) => r.user?.id).filter((id): id is string => Boolean(id)))];
     const users = new Map((await tx.find(UserSchema, { id: { $in: userIds } })).map((u) => [u.id, u]));
 
+    // Once the server is unreachable, the rest of this round waits with the same error.
+    let down: string | null = null;
     for (const rows of groups.values()) {
       rows.sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime());
       const user = rows[0].user ? (users.get(rows[0].user.id) ?? null) : null;
@@ -144,16 +166,19 @@ export async function flushOutbox(opts: FlushOptions = {}): Promise<FlushResult>
         continue;
       }
       try {
+        if (down) throw new Error(down);
         await send(composeBatch(rows, user));
         for (const r of rows) r.sentAt = now;
         result.messages += 1;
         result.rows += rows.length;
       } catch (e) {
         const message = e instanceof Error ? e.message : String(e);
+        if (serverUnreachable(e)) down = message;
         for (const r of rows) {
           r.attempts += 1;
           r.lastError = message.slice(0, 500);
           r.sendAfter = new Date(now.getTime() + backoffSeconds(r.attempts) * 1000);
+          if (r.attempts < MAX_ATTEMPTS && (!result.nextAttemptAt || r.sendAfter < result.nextAttemptAt)) result.nextAttemptAt = r.sendAfter;
         }
         result.failed += 1;
       }
@@ -166,30 +191,4 @@ export async function flushOutbox(opts: FlushOptions = {}): Promise<FlushResult>
 /** The bearer key for the flush route in production: an HMAC of the server's secret. */
 export function flushKey(): string {
   return createHmac("sha256", env.NEXTAUTH_SECRET).update("undertone-outbox-flush").digest("hex");
-}
-
-const timer = globalThis as unknown as { __undertoneOutboxTimer?: ReturnType<typeof setInterval> };
-
-/** Seconds between flushes: a quarter of the batch window, between 1 and 30. */
-export function flushIntervalSeconds(batchSeconds = env.MAIL_BATCH_SECONDS): number {
-  return Math.min(30, Math.max(1, Math.floor(batchSeconds / 4)));
-}
-
-/** Starts the periodic flush once per process (Node runtime only). */
-export function startOutboxTimer(): void {
-  if (timer.__undertoneOutboxTimer) return;
-  let busy = false;
-  timer.__undertoneOutboxTimer = setInterval(async () => {
-    if (busy) return;
-    busy = true;
-    try {
-      const r = await flushOutbox();
-      if (r.messages || r.failed) console.log(`outbox: sent ${r.messages} mail(s), ${r.failed} failed`);
-    } catch (e) {
-      console.error("outbox: flush failed", e);
-    } finally {
-      busy = false;
-    }
-  }, flushIntervalSeconds() * 1000);
-  timer.__undertoneOutboxTimer.unref?.();
 }

@@ -35,7 +35,7 @@ function parseCsv(text: string): Draft["patches"] {
   });
 }
 
-function CardEditor({ draft, onDone }: { draft: Draft; onDone: () => void }) {
+function CardEditor({ draft, onDone }: { draft: Draft; onDone: (recomputing?: number) => void }) {
   const { studioId } = useStudio();
   const save = useSaveCard(studioId);
   const [d, setD] = useState(draft);
@@ -100,10 +100,10 @@ function CardEditor({ draft, onDone }: { draft: Draft; onDone: () => void }) {
       </ol>
       {save.error && !fields && <Notice tone="danger">{save.error.message}</Notice>}
       <div className="flex gap-3">
-        <Button onClick={() => save.mutate(d, { onSuccess: onDone })} disabled={save.isPending}>
+        <Button onClick={() => save.mutate(d, { onSuccess: (saved) => onDone(saved.recomputing) })} disabled={save.isPending}>
           Save the card
         </Button>
-        <Button variant="quiet" onClick={onDone}>
+        <Button variant="quiet" onClick={() => onDone()}>
           Cancel
         </Button>
       </div>
@@ -117,6 +117,7 @@ export function CardsClient() {
   const canEdit = useCan("card.edit");
   const cards = useCards(studioId);
   const [editing, setEditing] = useState<Draft | null>(null);
+  const [remeasuring, setRemeasuring] = useState(0);
   return (
     <div className="space-y-5">
       <h1 className="text-3xl">Reference cards</h1>
@@ -124,9 +125,21 @@ export function CardsClient() {
         A card of known colours in every swatch photo lets Undertone correct the camera and the light.
       </p>
       {editing ? (
-        <CardEditor draft={editing} onDone={() => setEditing(null)} />
+        <CardEditor
+          draft={editing}
+          onDone={(n) => {
+            setRemeasuring(n ?? 0);
+            setEditing(null);
+          }}
+        />
       ) : (
         <>
+          {remeasuring > 0 && (
+            <Notice tone="info">
+              Saved. {remeasuring === 1 ? "1 reading is" : `${remeasuring} readings are`} being measured again with the new
+              values; trial pages show them updated in a few seconds.
+            </Notice>
+          )}
           {cards.data?.length === 0 && (
             <EmptyState title="No card yet">Start from the demo layout, print it, measure it, and type in the values.</EmptyState>
           )}

@@ -20,6 +20,11 @@ export function ReadingCard({ r }: { r: ReadingDto }) {
           ? `${QUALITY_WORDS[r.calibration.quality]} · card patches left out one at a time: mean ΔE00 ${r.calibration.looMeanDe00.toFixed(1)}, worst ${r.calibration.looMaxDe00.toFixed(1)}`
           : "No reference card: read as plain sRGB, an indication only."}
       </p>
+      {r.remeasuring && (
+        <p className="text-xs font-medium text-accent" role="status">
+          The card&apos;s values changed: measuring this reading again…
+        </p>
+      )}
     </div>
   );
 }

@@ -33,6 +33,8 @@ export interface ReadingDto {
   cardId: string | null;
   cardVersion: number | null;
   modelVersion: number;
+  /** The card changed since; the server is measuring this reading again. */
+  remeasuring: boolean;
   createdAt: string;
 }
 
@@ -57,6 +59,8 @@ export function useTrialPhotos(studioId: string, trialId: string) {
   return useQuery({
     queryKey: photoKeys.trial(studioId, trialId),
     queryFn: () => api<{ photos: PhotoDto[]; readings: ReadingDto[] }>(`/api/studios/${studioId}/trials/${trialId}/photos`),
+    // Readings being measured again after a card change come back within seconds; look again until they have.
+    refetchInterval: (q) => (q.state.data?.readings.some((r) => r.remeasuring) ? 3000 : false),
   });
 }
 
@@ -69,9 +73,10 @@ export function useSaveCard(studioId: string) {
   return useMutation({
     mutationFn: (card: Omit<CardDto, "id" | "updatedAt" | "version"> & { id?: string; version?: number }) =>
       card.id
-        ? api<CardDto & { recomputed: number }>(`/api/studios/${studioId}/cards/${card.id}`, { method: "PUT", body: card })
-        : api<CardDto>(`/api/studios/${studioId}/cards`, { method: "POST", body: card }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: photoKeys.cards(studioId) }),
+        ? api<CardDto & { recomputing: number }>(`/api/studios/${studioId}/cards/${card.id}`, { method: "PUT", body: card })
+        : api<CardDto & { recomputing?: number }>(`/api/studios/${studioId}/cards`, { method: "POST", body: card }),
+    // Readings of every trial may be measured again: refresh them all.
+    onSuccess: () => qc.invalidateQueries({ queryKey: ["studios", studioId] }),
   });
 }
 

@@ -3,7 +3,8 @@ import type { EntityManager } from "@mikro-orm/postgresql";
 import { ReferenceCardSchema, type ReferenceCard, type Studio } from "@/entities";
 import { conflict, notFound } from "@/lib/errors";
 import type { CardInput } from "@/lib/schemas/photo";
-import { recomputeCardReadings } from "./readings";
+import { enqueue } from "@/lib/jobs/boss";
+import { countStaleReadings } from "./readings";
 
 export interface CardDto {
   id: string;
@@ -51,20 +52,27 @@ export async function createCard(em: EntityManager, studio: Studio, input: CardI
   return cardDto(c);
 }
 
-/** New values for a card; readings it calibrated are measured again with them. */
+/**
+ * New values for a card. The readings it calibrated are measured again by a job queued in the
+ * same transaction (each photo is decoded again, which takes a while for many photos);
+ * `recomputing` says how many wait for it, and each shows as being measured again until then.
+ */
 export async function updateCard(
   em: EntityManager,
   studio: Studio,
   id: string,
   input: CardInput & { version: number },
-): Promise<CardDto & { recomputed: number }> {
-  const c = await findCard(em, studio, id);
-  if (c.version !== input.version) {
-    throw conflict("Someone else changed this card while you were editing. Reload to see their values, then apply yours again.");
-  }
-  const { version: _v, ...values } = input;
-  em.assign(c, values);
-  await em.flush();
-  const recomputed = await recomputeCardReadings(em, c);
-  return { ...cardDto(c), recomputed };
+): Promise<CardDto & { recomputing: number }> {
+  return em.transactional(async (tx) => {
+    const c = await findCard(tx, studio, id);
+    if (c.version !== input.version) {
+      throw conflict("Someone else changed this card while you were editing. Reload to see their values, then apply yours again.");
+    }
+    const { version: _v, ...values } = input;
+    tx.assign(c, values);
+    await tx.flush();
+    const recomputing = await countStaleReadings(tx, c);
+    if (recomputing) await enqueue(tx, "card-readings-recompute", { cardId: c.id }, { singletonKey: c.id });
+    return { ...cardDto(c), recomputing };
+  });
 }

@@ -3,7 +3,8 @@ import { randomUUID } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { LayerSchema, PhotoSchema, TrialSchema, type Photo, type Studio } from "@/entities";
 import { badRequest, HttpError, notFound } from "@/lib/errors";
-import { deleteObject, getObject, headObject, presignPut, putObject } from "@/lib/storage";
+import { enqueue } from "@/lib/jobs/boss";
+import { checkBucket, deleteObject, getObject, headObject, presignPut, putObject } from "@/lib/storage";
 import { MAX_PHOTO_BYTES, type UploadInput } from "@/lib/schemas/photo";
 import type { SessionUser } from "@/lib/auth/session";
 import { makeVariants } from "./process";
@@ -35,8 +36,26 @@ export function photoDto(p: Photo, studioId: string): PhotoDto {
   };
 }
 
+/** The keys a photo's objects live under, whether or not they were written. */
+function objectKeys(p: Photo): string[] {
+  const prefix = `studios/${p.studio.id}/photos/${p.id}`;
+  return [p.uploadKey, `${prefix}/master.jpg`, `${prefix}/web.webp`, `${prefix}/thumb.webp`];
+}
+
+/**
+ * Deletes objects now; whatever the store cannot delete now (it is down) is left to the
+ * "photo-objects-delete" job, which retries until it can.
+ */
+async function removeObjects(keys: string[]): Promise<void> {
+  const left: string[] = [];
+  await Promise.all(keys.map((k) => deleteObject(k).catch(() => left.push(k))));
+  if (left.length) await enqueue(null, "photo-objects-delete", { keys: left }).catch((e) => console.error("photos: cannot queue clean-up of", left, e));
+}
+
 /** Records a pending photo and returns a short-lived URL the browser PUTs the file to. */
 export async function startUpload(em: EntityManager, studio: Studio, user: SessionUser, input: UploadInput) {
+  // Presigning is local, so ask the store first: no record for an upload that cannot arrive.
+  await checkBucket();
   const trial = await em.findOne(TrialSchema, { id: input.trialId, studio });
   if (!trial) throw notFound("This trial");
   const layer = input.layerId ? await em.findOne(LayerSchema, { id: input.layerId, trial }) : null;
@@ -64,16 +83,27 @@ async function findPhoto(em: EntityManager, studio: Studio, photoId: string): Pr
 }
 
 /**
- * Checks what arrived in the bucket and writes the variants. Anything wrong removes the upload
- * and the record, so nothing half-written stays behind.
+ * Checks what arrived in the bucket and writes the variants. Anything wrong, the store going
+ * away included, removes the record and the objects (later, by a job, when the store is down),
+ * so nothing half-written stays behind; the person uploads again.
  */
 export async function confirmUpload(em: EntityManager, studio: Studio, photoId: string): Promise<PhotoDto> {
   const photo = await findPhoto(em, studio, photoId);
   if (photo.status === "ready") return photoDto(photo, studio.id);
   const discard = async () => {
-    await deleteObject(photo.uploadKey).catch(() => undefined);
     await em.removeAndFlush(photo);
+    await removeObjects(objectKeys(photo));
   };
+  try {
+    return await confirmStored(em, studio, photo, discard);
+  } catch (e) {
+    // The store went away mid-way: nothing can be checked; start over once it is back.
+    if (e instanceof HttpError && e.status === 503) await discard().catch(() => undefined);
+    throw e;
+  }
+}
+
+async function confirmStored(em: EntityManager, studio: Studio, photo: Photo, discard: () => Promise<void>): Promise<PhotoDto> {
   const head = await headObject(photo.uploadKey);
   if (!head) throw badRequest("The photo has not arrived yet. Upload it again.");
   if (head.size > MAX_PHOTO_BYTES) {
@@ -108,7 +138,7 @@ export async function confirmUpload(em: EntityManager, studio: Studio, photoId: 
     });
     await em.flush();
   } catch (e) {
-    await Promise.all(Object.values(keys).map((k) => deleteObject(k).catch(() => undefined)));
+    if (!(e instanceof HttpError && e.status === 503)) await Promise.all(Object.values(keys).map((k) => deleteObject(k).catch(() => undefined)));
     throw e;
   }
   // The upload may carry EXIF GPS; only the cleaned variants are kept.
@@ -133,15 +163,15 @@ export async function photoFile(em: EntityManager, studio: Studio, photoId: stri
 
 export async function deletePhoto(em: EntityManager, studio: Studio, photoId: string): Promise<void> {
   const photo = await findPhoto(em, studio, photoId);
-  const keys = [photo.uploadKey, photo.masterKey, photo.webKey, photo.thumbKey].filter(Boolean) as string[];
   await em.removeAndFlush(photo);
-  await Promise.all(keys.map((k) => deleteObject(k).catch(() => undefined)));
+  await removeObjects(objectKeys(photo));
 }
 
-/** Removes uploads that were never confirmed, older than `maxAgeMs` (default a day). */
+/** Removes uploads that were never confirmed, older than `maxAgeMs` (default a day), with any objects they left. */
 export async function sweepPendingUploads(em: EntityManager, maxAgeMs = 86_400_000): Promise<number> {
   const stale = await em.find(PhotoSchema, { status: "pending", createdAt: { $lt: new Date(Date.now() - maxAgeMs) } });
-  for (const p of stale) await deleteObject(p.uploadKey).catch(() => undefined);
-  if (stale.length) await em.remove(stale).flush();
+  if (!stale.length) return 0;
+  await em.remove(stale).flush();
+  await removeObjects(stale.flatMap(objectKeys));
   return stale.length;
 }

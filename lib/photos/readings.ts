@@ -35,6 +35,8 @@ export interface ReadingDto {
   cardVersion: number | null;
   modelVersion: number;
   region: Reading["region"];
+  /** The card's values changed since this reading; a job is measuring it again. */
+  remeasuring: boolean;
   createdAt: string;
 }
 
@@ -62,6 +64,7 @@ export function readingDto(r: Reading, photoKind: Photo["kind"]): ReadingDto {
     cardVersion: r.cardVersion ?? null,
     modelVersion: r.modelVersion,
     region: r.region,
+    remeasuring: Boolean(r.card?.isInitialized() && r.cardVersion !== r.card.getEntity().version),
     createdAt: r.createdAt.toISOString(),
   };
 }
@@ -114,7 +117,7 @@ export async function createReadings(
 }
 
 export async function listReadings(em: EntityManager, studio: Studio, trialId: string): Promise<ReadingDto[]> {
-  const list = await em.find(ReadingSchema, { studio, trial: trialId }, { populate: ["photo"], orderBy: { createdAt: "asc" } });
+  const list = await em.find(ReadingSchema, { studio, trial: trialId }, { populate: ["photo", "card"], orderBy: { createdAt: "asc" } });
   return list.map((r) => readingDto(r, r.photo.getEntity().kind));
 }
 
@@ -124,7 +127,15 @@ export async function deleteReading(em: EntityManager, studio: Studio, readingId
   await em.removeAndFlush(r);
 }
 
-/** Re-measures every reading calibrated by a card after its values changed. Returns how many. */
+/** How many of the card's readings were calibrated with other values than its current ones. */
+export function countStaleReadings(em: EntityManager, card: ReferenceCard): Promise<number> {
+  return em.count(ReadingSchema, { card, cardVersion: { $ne: card.version } });
+}
+
+/**
+ * Re-measures every reading calibrated by a card after its values changed (the
+ * "card-readings-recompute" job). Returns how many.
+ */
 export async function recomputeCardReadings(em: EntityManager, card: ReferenceCard): Promise<number> {
   const list = await em.find(ReadingSchema, { card, cardVersion: { $ne: card.version } }, { populate: ["photo"] });
   const byPhoto = new Map<string, Reading[]>();

@@ -1,4 +1,4 @@
-// Lets scripts (benchmarks) import lib/ modules: "server-only" throws outside a React server
+// Lets scripts (benchmarks, the job worker) import lib/ modules: "server-only" throws outside a React server
 // bundle, so for plain Node it resolves to an empty module.
 import { register } from "node:module";
 

@@ -13,6 +13,7 @@ import * as studioRoute from "@/app/api/studios/[studioId]/route";
 import { actAs } from "../support/session";
 import { type Person, type StudioFixture, address, makeInvitation, makeStudio, makeUser, roleOf } from "../support/fixtures";
 import { call } from "../support/route";
+import { flushOutbox } from "@/lib/outbox";
 import { type FakeMessage, linksIn, waitForMessage } from "../support/mail";
 
 vi.mock("next-auth", async (importOriginal) => {
@@ -39,6 +40,7 @@ async function invite(email: string, role: string) {
   actAs(owner);
   const res = await call(invitationsRoute.POST, "POST", { studioId: studio.id }, { body: { email, role } });
   expect(res.status).toBe(201);
+  await flushOutbox(); // the invitation mail waits in the outbox for the worker's flush
   const mail = await waitForMessage(email.toLowerCase(), { match: (m) => linksIn(m).some((l) => l.includes("/invite/")) });
   const link = linksIn(mail).find((l) => l.includes("/invite/"))!;
   return { res, mail, link, token: link.split("/invite/")[1] };

@@ -15,6 +15,7 @@ import * as trialPhotosRoute from "@/app/api/studios/[studioId]/trials/[trialId]
 import { deltaE00, DEMO_CARD, renderPhoto } from "@/colour";
 import { PhotoSchema } from "@/entities";
 import { getEm, getOrm } from "@/lib/db";
+import { stopBoss } from "@/lib/jobs/boss";
 import { env } from "@/lib/env";
 import { storageClient } from "@/lib/storage";
 import { sweepPendingUploads } from "@/lib/photos/photos";
@@ -22,6 +23,7 @@ import { actAs } from "../support/session";
 import { type Person, type StudioFixture, makeStudio, makeUser } from "../support/fixtures";
 import { call } from "../support/route";
 import { makeTrial } from "../support/trial-fixtures";
+import { drainQueue } from "../support/jobs";
 
 vi.mock("next-auth", async (importOriginal) => {
   const { fakeGetServerSession } = await import("../support/session");
@@ -94,6 +96,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
+  await stopBoss();
   await (await getOrm()).close();
 });
 
@@ -215,14 +218,19 @@ describe("calibrated readings", () => {
     expect(reading.calibration.quality).not.toBe("retake");
     expect(reading.cardVersion).toBe(card.json.version);
 
-    // Changing the card's values re-measures the reading with the new version.
+    // Changing the card's values queues a job that re-measures the reading with the new version;
+    // until it has run the reading says it is being measured again.
     const patches = card.json.patches.map((p: { L: number }, i: number) => (i === 0 ? { ...p, L: p.L - 1 } : p));
     const put = await call(cardRoute.PUT, "PUT", { studioId: studio.id, cardId: card.json.id }, { body: { ...card.json, patches, version: card.json.version } });
     expect(put.status).toBe(200);
-    expect(put.json.recomputed).toBe(1);
-    const list = await call(trialPhotosRoute.GET, "GET", { studioId: studio.id, trialId });
-    const again = list.json.readings.find((r: { id: string }) => r.id === reading.id);
-    expect(again.cardVersion).toBe(put.json.version);
+    expect(put.json.recomputing).toBe(1);
+    const readingOf = async () =>
+      (await call(trialPhotosRoute.GET, "GET", { studioId: studio.id, trialId })).json.readings.find((r: { id: string }) => r.id === reading.id);
+    expect(await readingOf()).toMatchObject({ cardVersion: card.json.version, remeasuring: true });
+    const drained = await drainQueue("card-readings-recompute");
+    expect(drained.ran).toContainEqual({ cardId: card.json.id });
+    expect(drained.failed).toEqual([]);
+    expect(await readingOf()).toMatchObject({ cardVersion: put.json.version, remeasuring: false });
     const stale = await call(cardRoute.PUT, "PUT", { studioId: studio.id, cardId: card.json.id }, { body: { ...card.json, patches, version: card.json.version } });
     expect(stale.status).toBe(409);
   });

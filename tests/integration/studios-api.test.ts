@@ -11,6 +11,7 @@ import * as accountRoute from "@/app/api/account/route";
 import { actAs } from "../support/session";
 import { type Person, type StudioFixture, makeStudio, makeUser, roleOf } from "../support/fixtures";
 import { call } from "../support/route";
+import { flushOutbox } from "@/lib/outbox";
 import { waitForMessage } from "../support/mail";
 
 vi.mock("next-auth", async (importOriginal) => {
@@ -191,6 +192,7 @@ describe("account", () => {
     expect((await call(accountRoute.PATCH, "PATCH", {}, { body: { name: "Wren Calloway" } })).json.name).toBe("Wren Calloway");
     const to = `renamed-${Date.now()}@studios-api.test`;
     expect((await call(invitationsRoute.POST, "POST", sid(), { body: { email: to, role: "guest" } })).status).toBe(201);
+    await flushOutbox(); // the invitation mail waits in the outbox for the worker's flush
     expect((await waitForMessage(to)).subject).toBe("Wren Calloway invited you to Saltmarsh Dye Room on Undertone");
   });
 });

@@ -1,4 +1,4 @@
-// GET /api/studios/:studioId/cards/:cardId – one card; PUT – new values, readings recomputed (owner, dyer)
+// GET /api/studios/:studioId/cards/:cardId – one card; PUT – new values, readings measured again by a job (owner, dyer)
 import { isUuid, readJson, withStudio } from "@/lib/auth/with-studio";
 import { notFound } from "@/lib/errors";
 import { getCard, updateCard } from "@/lib/photos/cards";
