@@ -43,15 +43,19 @@ export default defineConfig({
   },
   projects: [
     { name: "setup", testMatch: /auth\.setup\.ts/, use: chromium },
+    // Starts a second server beside the web server: run once, not per viewport.
+    { name: "instances", testMatch: /instances\.spec\.ts/, use: chromium },
     {
       name: "phone",
       testMatch: /.*\.spec\.ts/,
+      testIgnore: /instances\.spec\.ts/,
       dependencies: ["setup"],
       use: { ...chromium, viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true },
     },
     {
       name: "desktop",
       testMatch: /.*\.spec\.ts/,
+      testIgnore: /instances\.spec\.ts/,
       dependencies: ["setup"],
       use: { ...chromium, viewport: { width: 1280, height: 800 } },
     },

@@ -48,15 +48,24 @@ async function mustBeFree(port: number) {
   if (await portOpen(port)) throw new Error(`port ${port} is taken; the throwaway services need it free`);
 }
 
+/** The same as asPostgres without blocking the event loop, so requests in flight go on meanwhile. */
+function asPostgresAsync(cmd: string, args: string[]): Promise<void> {
+  const asRoot = process.getuid?.() === 0;
+  const child = asRoot ? spawn("runuser", ["-u", "postgres", "--", cmd, ...args], { cwd: "/" }) : spawn(cmd, args, { cwd: "/" });
+  let err = "";
+  child.stderr?.on("data", (d) => (err += d));
+  return new Promise((resolve, reject) =>
+    child.once("exit", (code) => (code === 0 ? resolve() : reject(new Error(`${cmd} ${args.join(" ")} failed (${code}): ${err}`)))),
+  );
+}
+
 export interface ThrowawayPostgres {
   port: number;
   url(database: string): string;
   createDatabase(name: string): void;
-  start(): void;
+  start(): Promise<void>;
   /** Stops the server (fast: open connections are closed). */
-  stop(): void;
-  /** A stop and start in one, the way an operator restarts it. */
-  restart(): void;
+  stop(): Promise<void>;
   destroy(): void;
 }
 
@@ -89,6 +98,7 @@ export async function throwawayPostgres(port: number): Promise<ThrowawayPostgres
   appendFileSync(path.join(data, "postgresql.conf"), `\n${conf}\n`);
   const log = path.join(base, "server.log");
   const pgCtl = (...args: string[]) => asPostgres(`${bin}/pg_ctl`, ["-D", data, "-l", log, "-w", "-t", "30", ...args]);
+  const pgCtlAsync = (...args: string[]) => asPostgresAsync(`${bin}/pg_ctl`, ["-D", data, "-l", log, "-w", "-t", "30", ...args]);
   const psql = (sql: string) =>
     spawnSync(`${bin}/psql`, ["-X", "-q", "-v", "ON_ERROR_STOP=1", "-h", "127.0.0.1", "-p", String(port), "-U", "postgres", "-d", "postgres", "-c", sql], {
       encoding: "utf8",
@@ -101,9 +111,8 @@ export async function throwawayPostgres(port: number): Promise<ThrowawayPostgres
       const r = psql(`create database "${name}"`);
       if (r.status !== 0) throw new Error(r.stderr);
     },
-    start: () => void pgCtl("start"),
-    stop: () => void pgCtl("stop", "-m", "fast"),
-    restart: () => void pgCtl("restart", "-m", "fast"),
+    start: () => pgCtlAsync("start"),
+    stop: () => pgCtlAsync("stop", "-m", "fast"),
     destroy() {
       try {
         pgCtl("stop", "-m", "immediate");
