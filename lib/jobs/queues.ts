@@ -15,14 +15,17 @@ export interface QueueSpec {
 }
 
 export const QUEUES = {
-  /** Sends due outbox mail. Woken for each new batch at its send time, and every minute as a safety net. */
+  /**
+   * Sends due outbox mail. Woken for each new batch at its send time, and every minute as a
+   * safety net. Not a singleton: flushes may overlap (the rows are locked while sent), so a
+   * worker that dies mid-flush holds up only its own job until it expires.
+   */
   outboxFlush: {
     name: "outbox-flush",
-    policy: "singleton",
     retryLimit: 5,
     retryDelay: 15,
     retryBackoff: true,
-    expireInSeconds: 600,
+    expireInSeconds: 120,
     cron: "* * * * *",
   },
   /** Removes uploads that were started but never confirmed. */
@@ -42,14 +45,17 @@ export const QUEUES = {
     retryBackoff: true,
     expireInSeconds: 300,
   },
-  /** Measures a card's readings again after its values changed (one job at a time per card). */
+  /**
+   * Measures a card's readings again after its values changed (one job at a time per card; one
+   * held by a worker that died is given up after its expiry and retried).
+   */
   readingsRecompute: {
     name: "card-readings-recompute",
     policy: "singleton",
     retryLimit: 5,
     retryDelay: 20,
     retryBackoff: true,
-    expireInSeconds: 900,
+    expireInSeconds: 300,
   },
 } as const satisfies Record<string, QueueSpec>;
 
