@@ -1,3 +1,18 @@
+// Fixed security headers for every response. The Content-Security-Policy is not here: it carries
+// a per-request nonce, so proxy.ts sets it (lib/security/csp.ts says what it allows and why).
+export const securityHeaders = [
+  // Older browsers' form of frame-ancestors 'none': no site may frame Undertone.
+  { key: "X-Frame-Options", value: "DENY" },
+  { key: "X-Content-Type-Options", value: "nosniff" },
+  { key: "Referrer-Policy", value: "strict-origin-when-cross-origin" },
+  // The camera is for swatch photos, on our own pages only; nothing else is used.
+  {
+    key: "Permissions-Policy",
+    value: "camera=(self), microphone=(), geolocation=(), payment=(), usb=(), serial=(), bluetooth=(), browsing-topics=()",
+  },
+  { key: "Cross-Origin-Opener-Policy", value: "same-origin" },
+];
+
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   serverExternalPackages: [
@@ -9,6 +24,9 @@ const nextConfig = {
     "pg-boss",
   ],
   poweredByHeader: false,
+  async headers() {
+    return [{ source: "/:path*", headers: securityHeaders }];
+  },
   // The build checks the app's own code; tests and scripts are checked by `npm run typecheck`.
   typescript: { tsconfigPath: "tsconfig.build.json" },
 };

@@ -1,4 +1,5 @@
 import type { Metadata, Viewport } from "next";
+import { connection } from "next/server";
 import { Providers } from "@/components/providers";
 import { plexMono, plexSans, sourceSerif } from "./fonts";
 import "./globals.css";
@@ -14,7 +15,10 @@ export const viewport: Viewport = {
   themeColor: "#f6f2ea",
 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page is rendered per request, so Next can put this response's CSP nonce on its
+  // scripts (lib/security/csp.ts); a page prerendered at build time would have none.
+  await connection();
   return (
     <html lang="en" className={`${plexSans.variable} ${sourceSerif.variable} ${plexMono.variable}`}>
       <body>

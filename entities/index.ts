@@ -6,6 +6,7 @@ import { LayerSchema, StepTimerSchema, TrialSchema } from "./trial";
 import { PhotoSchema, ReadingSchema, ReferenceCardSchema } from "./photo";
 import { ActivityEventSchema, CommentSchema, FollowSchema, MailOutboxSchema, NotificationSchema } from "./comment";
 import { ColourwaySchema, DyeLotSchema, DyeProfileSchema, LayerPredictionSchema } from "./colourway";
+import { RateLimitSchema } from "./security";
 
 export const entities = [
   UserSchema,
@@ -31,6 +32,7 @@ export const entities = [
   LayerPredictionSchema,
   ColourwaySchema,
   DyeLotSchema,
+  RateLimitSchema,
 ];
 
 export * from "./base";
@@ -41,3 +43,4 @@ export * from "./trial";
 export * from "./photo";
 export * from "./comment";
 export * from "./colourway";
+export * from "./security";

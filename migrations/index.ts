@@ -5,6 +5,7 @@ import { Migration20261202010701_trials } from "./Migration20261202010701_trials
 import { Migration20261202011047_photos } from "./Migration20261202011047_photos";
 import { Migration20261202011154_comments } from "./Migration20261202011154_comments";
 import { Migration20261202013432_colourways } from "./Migration20261202013432_colourways";
+import { Migration20261202050458_rate_limits } from "./Migration20261202050458_rate_limits";
 
 export const migrationsList: MigrationObject[] = [
   { name: "Migration20261202005358_studios", class: Migration20261202005358_studios },
@@ -12,4 +13,5 @@ export const migrationsList: MigrationObject[] = [
   { name: "Migration20261202011047_photos", class: Migration20261202011047_photos },
   { name: "Migration20261202011154_comments", class: Migration20261202011154_comments },
   { name: "Migration20261202013432_colourways", class: Migration20261202013432_colourways },
+  { name: "Migration20261202050458_rate_limits", class: Migration20261202050458_rate_limits },
 ];

@@ -44,7 +44,7 @@ export function InviteClient({ token, preview, signedInAs }: { token: string; pr
     const res = await signIn("email", { email: preview.email, redirect: false, callbackUrl: here });
     if (res?.ok && !res.error) router.push(`/signin/check-mail?email=${encodeURIComponent(preview.email)}`);
     else {
-      setError("We could not send the sign-in mail. Try again in a moment.");
+      setError(res?.status === 429 && res.error ? res.error : "We could not send the sign-in mail. Try again in a moment.");
       setBusy(false);
     }
   }

@@ -24,6 +24,9 @@ export function SignInClient({ next, error }: { next: string; error?: string }) 
     if (res?.ok && !res.error) {
       // A full navigation, so every server component sees the new session cookie.
       window.location.assign(next);
+    } else if (res?.status === 429 && res.error) {
+      // Rate-limited: the server's sentence says how long to wait.
+      setMessage(res.error);
     } else {
       setMessage("That e-mail and password do not match. Check both, or ask for a sign-in link instead.");
     }
@@ -36,6 +39,7 @@ export function SignInClient({ next, error }: { next: string; error?: string }) 
     const res = await signIn("email", { email, redirect: false, callbackUrl: next });
     setBusy(false);
     if (res?.ok && !res.error) router.push(`/signin/check-mail?email=${encodeURIComponent(email)}`);
+    else if (res?.status === 429 && res.error) setMessage(res.error);
     else setMessage("We could not send the sign-in mail. Check the address and try again.");
   }
 

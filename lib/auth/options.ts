@@ -9,13 +9,20 @@ import { getEm } from "@/lib/db";
 import { env } from "@/lib/env";
 import { sendMail } from "@/lib/mail";
 import { undertoneAdapter } from "./adapter";
+import { clearEmail } from "./rate-limit";
 import { signInMail } from "./sign-in-mail";
 
 const credentials = z.object({ email: z.string().trim().toLowerCase().email(), password: z.string().min(1).max(200) });
 
+/** The address next-auth builds its links from; the app's own address when it is not set. */
+const authUrl = process.env.NEXTAUTH_URL ?? env.APP_URL;
+
 export const authOptions: NextAuthOptions = {
   adapter: undertoneAdapter(),
   secret: env.NEXTAUTH_SECRET,
+  // Served over https: cookies are Secure and __Secure-/__Host- prefixed (next-auth's default for
+  // an https NEXTAUTH_URL, stated here so it does not depend on which variable is set).
+  useSecureCookies: authUrl.startsWith("https://"),
   session: { strategy: "jwt", maxAge: 30 * 24 * 60 * 60 },
   pages: { signIn: "/signin", verifyRequest: "/signin/check-mail", error: "/signin" },
   providers: [
@@ -42,6 +49,12 @@ export const authOptions: NextAuthOptions = {
       },
     }),
   ],
+  events: {
+    // Someone who just signed in is not being guessed at: their own rate-limit counters start again.
+    async signIn({ user }) {
+      await clearEmail(user.email).catch((e) => console.error("rate limit: could not clear counters", e));
+    },
+  },
   callbacks: {
     async jwt({ token, user }) {
       if (user) token.uid = user.id;

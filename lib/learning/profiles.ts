@@ -1,6 +1,6 @@
 import "server-only";
 import type { EntityManager } from "@mikro-orm/postgresql";
-import { fitDyeProfiles, profileToJson, type DyeProfileJson } from "@/colour";
+import { fitDyeProfiles, profileToJson, type DyeProfile, type DyeProfileJson } from "@/colour";
 import { DyeProfileSchema, DyeSchema, type Studio } from "@/entities";
 import { studioDyeings } from "./dyeings";
 
@@ -56,6 +56,7 @@ export async function refitProfiles(em: EntityManager, studio: Studio): Promise<
   const dyeings = await studioDyeings(em, studio);
   const classes = [...new Set(dyeings.map((d) => d.fibreClass))];
   const results: RefitResult[] = [];
+  const fitted: { fibreClass: string; profiles: DyeProfile[] }[] = [];
   for (const fibreClass of classes) {
     const set = dyeings.filter((d) => d.fibreClass === fibreClass);
     const fit = fitDyeProfiles(set, { fibre: fibreClass });
@@ -63,22 +64,30 @@ export async function refitProfiles(em: EntityManager, studio: Studio): Promise<
       results.push({ fibreClass, ok: false, message: fit.message, dyes: 0, dyeings: set.length });
       continue;
     }
-    const dyes = await em.find(DyeSchema, { studio, id: { $in: fit.profiles.map((p) => p.dyeId) } });
-    const known = new Set(dyes.map((d) => d.id));
-    for (const p of fit.profiles.filter((x) => known.has(x.dyeId))) {
-      const existing = await em.findOne(DyeProfileSchema, { studio, dye: p.dyeId, fibreClass });
-      const values = {
-        profile: profileToJson(p) as unknown as Record<string, unknown>,
-        nDyeings: p.quality.n,
-        meanDe00: p.quality.meanDE00,
-        maxDe00: p.quality.maxDE00,
-        fittedAt: new Date(),
-      };
-      if (existing) em.assign(existing, { ...values, modelVersion: existing.modelVersion + 1 });
-      else em.create(DyeProfileSchema, { studio, dye: p.dyeId, fibreClass, ...values });
-    }
+    fitted.push({ fibreClass, profiles: fit.profiles });
     results.push({ fibreClass, ok: true, dyes: fit.profiles.length, dyeings: set.length });
   }
-  await em.flush();
+  // Two refits of one studio at once would both read version n and both write n + 1 (or both
+  // insert a first profile and one fail on the unique key): the writes take a per-studio lock,
+  // so the second waits, reads what the first stored and counts on from there.
+  await em.transactional(async (tx) => {
+    await tx.execute("select pg_advisory_xact_lock(hashtext(?))", [`refit:${studio.id}`]);
+    for (const { fibreClass, profiles } of fitted) {
+      const dyes = await tx.find(DyeSchema, { studio: studio.id, id: { $in: profiles.map((p) => p.dyeId) } });
+      const known = new Set(dyes.map((d) => d.id));
+      for (const p of profiles.filter((x) => known.has(x.dyeId))) {
+        const existing = await tx.findOne(DyeProfileSchema, { studio: studio.id, dye: p.dyeId, fibreClass }, { refresh: true });
+        const values = {
+          profile: profileToJson(p) as unknown as Record<string, unknown>,
+          nDyeings: p.quality.n,
+          meanDe00: p.quality.meanDE00,
+          maxDe00: p.quality.maxDE00,
+          fittedAt: new Date(),
+        };
+        if (existing) tx.assign(existing, { ...values, modelVersion: existing.modelVersion + 1 });
+        else tx.create(DyeProfileSchema, { studio: studio.id, dye: p.dyeId, fibreClass, ...values });
+      }
+    }
+  });
   return results;
 }

@@ -2,23 +2,38 @@
 //   vi.mock("next-auth", async (orig) => ({ ...(await orig<object>()), getServerSession: fakeGetServerSession }));
 // (importing fakeGetServerSession inside the factory) and then picks who is signed in with
 // actAs(user) or actAs(null). Everything behind the session — database, permissions,
-// handlers — stays real.
+// handlers — stays real. Requests that run at the same time as different people use
+// runAs(user, fn): the person travels with the async call chain, not in a global.
+import { AsyncLocalStorage } from "node:async_hooks";
+
 export interface FakeSessionUser {
   id: string;
   email: string;
   name: string;
 }
 
-const state = globalThis as unknown as { __undertoneFakeSession?: FakeSessionUser | null };
+const state = globalThis as unknown as {
+  __undertoneFakeSession?: FakeSessionUser | null;
+  __undertoneFakeSessionScope?: AsyncLocalStorage<FakeSessionUser | null>;
+};
+const scope = (state.__undertoneFakeSessionScope ??= new AsyncLocalStorage<FakeSessionUser | null>());
+
+const strip = (user: FakeSessionUser | null) => (user ? { id: user.id, email: user.email, name: user.name } : null);
 
 /** Who the next requests come from; null means signed out. */
 export function actAs(user: FakeSessionUser | null): void {
-  state.__undertoneFakeSession = user ? { id: user.id, email: user.email, name: user.name } : null;
+  state.__undertoneFakeSession = strip(user);
+}
+
+/** Runs `fn` (and everything it awaits) as `user`, whatever actAs says meanwhile. */
+export function runAs<T>(user: FakeSessionUser | null, fn: () => Promise<T>): Promise<T> {
+  return scope.run(strip(user), fn);
 }
 
 /** Stands in for next-auth's getServerSession: the shape next-auth returns for a JWT session. */
 export async function fakeGetServerSession() {
-  const u = state.__undertoneFakeSession;
+  const scoped = scope.getStore();
+  const u = scoped !== undefined ? scoped : state.__undertoneFakeSession;
   if (!u) return null;
   return { user: { id: u.id, email: u.email, name: u.name }, expires: new Date(Date.now() + 86_400_000).toISOString() };
 }

@@ -1,0 +1,6 @@
+// Types for next.config.mjs, so tests can import its headers.
+import type { NextConfig } from "next";
+
+export declare const securityHeaders: { key: string; value: string }[];
+declare const nextConfig: NextConfig;
+export default nextConfig;
