@@ -71,7 +71,7 @@ test("a mention reaches the guest by mail; the guest replies; the dyer sees both
   await g.getByLabel("E-mail").fill(guest.email);
   await g.getByLabel("Password").fill(guest.password);
   await g.getByRole("button", { name: "Sign in" }).click();
-  await expect(g).toHaveURL(new RegExp(`${url}(#.*)?$`));
+  await expect(g).toHaveURL(new RegExp(`${url}(#.*)?$`), { timeout: 30_000 });
   const original = g.getByRole("listitem", { name: `Comment by ${dyer.name}` }).filter({ hasText: mark });
   await expect(original).toBeVisible();
   // A guest may comment, but has no remove button on the dyer's words.
