@@ -27,7 +27,7 @@ export const STORE_UNAVAILABLE = "The photo store is not reachable right now. No
 // could not hand out a connection. Looked for on the error and on what it wraps.
 const NET_CODES = new Set(["ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "EPIPE", "ENOTFOUND", "EHOSTUNREACH", "EAI_AGAIN"]);
 const PG_CODES = /^(57P0[1-3]|08...)$/;
-const PG_MESSAGES = /Connection terminated|connection ended unexpectedly|Timeout acquiring a connection|terminating connection|the database system is (starting up|shutting down)|Client has encountered a connection error/i;
+const PG_MESSAGES = /Connection terminated|Transaction query already complete|connection ended unexpectedly|Timeout acquiring a connection|terminating connection|the database system is (starting up|shutting down)|Client has encountered a connection error/i;
 
 function causes(e: unknown): unknown[] {
   const out: unknown[] = [];

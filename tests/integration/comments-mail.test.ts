@@ -17,7 +17,7 @@ import { actAs } from "../support/session";
 import { type Person, type StudioFixture, makeStudio, makeUser } from "../support/fixtures";
 import { call } from "../support/route";
 import { doc, makeTrial, mention, text } from "../support/comments";
-import { linksIn, listMessages } from "../support/mail";
+import { linksIn, listMessages, waitForMessage } from "../support/mail";
 
 vi.mock("next-auth", async (importOriginal) => {
   const { fakeGetServerSession } = await import("../support/session");
@@ -82,6 +82,8 @@ describe("batching", () => {
     expect(await listMessages(c.guest.email)).toHaveLength(0);
 
     await flushOutbox({ now: later(WINDOW_MS + 1000) });
+    // The fake stores a message just after accepting it: wait for it, then count.
+    await waitForMessage(c.guest.email, { timeoutMs: 10_000 });
     const toGuest = await listMessages(c.guest.email);
     expect(toGuest).toHaveLength(1);
     const m = toGuest[0];

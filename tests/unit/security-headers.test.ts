@@ -42,7 +42,8 @@ describe("Content-Security-Policy (proxy)", () => {
     expect(d.get("base-uri")).toEqual(["'self'"]);
     expect(d.get("form-action")).toEqual(["'self'"]);
     expect(d.get("img-src")).toEqual(["'self'", "blob:", "data:"]);
-    expect(d.get("connect-src")).toEqual(["'self'", "http://127.0.0.1:4569"]);
+    // The object store's origin, where the browser PUTs uploads (S3_ENDPOINT, default the local fake).
+    expect(d.get("connect-src")).toEqual(["'self'", new URL(process.env.S3_ENDPOINT ?? "http://127.0.0.1:4569").origin]);
     expect(d.get("style-src")).toEqual(["'self'", "'unsafe-inline'"]);
     const script = d.get("script-src")!;
     expect(script[0]).toBe("'self'");
