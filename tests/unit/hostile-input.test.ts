@@ -5,6 +5,7 @@ import { readJson } from "@/lib/auth/with-studio";
 import { HttpError } from "@/lib/errors";
 import { commentDoc } from "@/lib/schemas/comment";
 import { trialInput } from "@/lib/schemas/trial";
+import { notesText } from "@/lib/trials/notes";
 
 const nested = (depth: number) => JSON.parse(`${"[".repeat(depth)}1${"]".repeat(depth)}`);
 const deepDoc = (depth: number) =>
@@ -62,5 +63,12 @@ describe("schemas given values nested past the stack's depth", () => {
     const doc = { type: "doc", content: [{ type: "paragraph", content: [{ type: "text", text: "Dip to the halfway mark." }] }] };
     expect(commentDoc.safeParse(doc).success).toBe(true);
     expect(trialInput.safeParse({ title: "Notes", fibreWeightG: 100, notes: doc }).success).toBe(true);
+  });
+});
+
+describe("notesText", () => {
+  it("skips what is not a node (the notes schema checks only the outer document)", () => {
+    const doc = { type: "doc", content: [null, 5, "loose", { type: "paragraph", content: [null, { type: "text", text: "Rinse warm." }] }] };
+    expect(notesText(doc)).toBe("Rinse warm.");
   });
 });
