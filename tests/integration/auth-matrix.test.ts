@@ -12,7 +12,7 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import sharp from "sharp";
-import { CommentSchema, ColourwaySchema, LayerSchema, NotificationSchema, ReadingSchema, ReferenceCardSchema, StepTimerSchema } from "@/entities";
+import { ColourwaySchema, LayerSchema, NotificationSchema, ReadingSchema, ReferenceCardSchema } from "@/entities";
 import type { Role } from "@/entities/studio";
 import { getEm, getOrm } from "@/lib/db";
 import { env } from "@/lib/env";
@@ -24,6 +24,7 @@ import { callInRequestScope } from "../support/next-request";
 import { makeReading } from "../support/readings";
 import { dosDye, makeBase, makeDye, makeStock, makeTrial } from "../support/trial-fixtures";
 import { doc, text } from "../support/comments";
+import { makeCard, makeColourway, makeComment, makeTimer } from "../support/records";
 
 vi.mock("next-auth", async (importOriginal) => {
   const { fakeGetServerSession } = await import("../support/session");
@@ -131,67 +132,6 @@ const a = {} as {
   colourwayId: string; cardId: string; photoId: string;
 };
 const b = {} as { trialId: string; layerId: string; readingId: string; colourwayId: string; photoId: string };
-
-async function makeCard(studioId: string): Promise<string> {
-  const em = await getEm();
-  const c = em.create(ReferenceCardSchema, {
-    studio: studioId,
-    name: "Grey step card",
-    rows: 1,
-    cols: 2,
-    patches: [
-      { name: "light", L: 80, a: 0, b: 0 },
-      { name: "dark", L: 30, a: 0, b: 0 },
-    ],
-  });
-  await em.flush();
-  return c.id;
-}
-
-async function makeColourway(studioId: string, trialId: string, readingId: string, userId: string): Promise<string> {
-  const em = await getEm();
-  const c = em.create(ColourwaySchema, {
-    studio: studioId,
-    name: "Estuary grey",
-    targetL: 50,
-    targetA: 0,
-    targetB: -5,
-    sourceTrial: trialId,
-    sourceReading: readingId,
-    recipe: { fibreWeightG: 100, layers: [] },
-    proposedBy: userId,
-  });
-  await em.flush();
-  return c.id;
-}
-
-async function makeComment(studioId: string, trialId: string, author: Person): Promise<{ id: string; version: number }> {
-  const em = await getEm();
-  const c = em.create(CommentSchema, {
-    studio: studioId,
-    trial: trialId,
-    author: author.id,
-    body: doc(text("Rinse ran clear after two changes.")) as never,
-    bodyText: "Rinse ran clear after two changes.",
-  });
-  await em.flush();
-  return { id: c.id, version: c.version };
-}
-
-async function makeTimer(studioId: string, trialId: string, userId: string): Promise<{ id: string; version: number }> {
-  const em = await getEm();
-  const t = em.create(StepTimerSchema, {
-    studio: studioId,
-    trial: trialId,
-    startedBy: userId,
-    label: "Steam",
-    durationSec: 1200,
-    runningSince: new Date(),
-    state: "running",
-  });
-  await em.flush();
-  return { id: t.id, version: t.version };
-}
 
 async function versionOf(schema: typeof LayerSchema | typeof ColourwaySchema | typeof ReferenceCardSchema, id: string): Promise<number> {
   const em = await getEm();
