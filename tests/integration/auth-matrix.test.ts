@@ -154,6 +154,8 @@ async function freshTrial(layers = 0): Promise<{ trialId: string; layerIds: stri
 /** A person for a call: the caller's own fixture, or the owner for the signed-out caller. */
 const personFor = (who: Caller): Person => (who === "anonymous" ? people.owner : people[who]);
 const passwordOf = "matrix-correct-horse";
+/** A client address of this run's own, so sign-in rate limits counted for other tests do not apply. */
+const CLIENT_IP = `10.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}.${1 + Math.floor(Math.random() * 250)}`;
 
 beforeAll(async () => {
   const [owner, dyer, guest, outsider] = await Promise.all([
@@ -281,7 +283,7 @@ const EXPECTED: Record<string, Entry> = {
       const { cookie, csrfToken } = await csrf();
       return {
         params: { nextauth: ["callback", "password"] },
-        headers: { cookie },
+        headers: { cookie, "x-forwarded-for": CLIENT_IP },
         form: { csrfToken, email: people.owner.email, password: "wrong-password" },
       };
     },
@@ -293,7 +295,7 @@ const EXPECTED: Record<string, Entry> = {
           const { cookie, csrfToken } = await csrf();
           const res = await invoke("POST /api/auth/[...nextauth]", null, {
             params: { nextauth: ["callback", "password"] },
-            headers: { cookie },
+            headers: { cookie, "x-forwarded-for": CLIENT_IP },
             form: { csrfToken, email: people.owner.email, password: "wrong-password" },
           }, { requestScope: true });
           expect(res.headers.get("location")).toMatch(/error=CredentialsSignin/);
@@ -308,7 +310,7 @@ const EXPECTED: Record<string, Entry> = {
           const { cookie, csrfToken } = await csrf();
           const res = await invoke("POST /api/auth/[...nextauth]", null, {
             params: { nextauth: ["callback", "password"] },
-            headers: { cookie },
+            headers: { cookie, "x-forwarded-for": CLIENT_IP },
             form: { csrfToken, email: people.owner.email, password: passwordOf },
           }, { requestScope: true });
           expect(res.headers.get("set-cookie") ?? "").toMatch(/session-token=/);
@@ -321,6 +323,7 @@ const EXPECTED: Record<string, Entry> = {
         run: async () => {
           const res = await invoke("POST /api/auth/[...nextauth]", null, {
             params: { nextauth: ["callback", "password"] },
+            headers: { "x-forwarded-for": CLIENT_IP },
             form: { email: people.owner.email, password: passwordOf },
           }, { requestScope: true });
           expect(res.headers.get("set-cookie") ?? "").not.toMatch(/session-token=/);
