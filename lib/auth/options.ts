@@ -64,5 +64,16 @@ export const authOptions: NextAuthOptions = {
       if (session.user && typeof token.uid === "string") session.user.id = token.uid;
       return session;
     },
+    // next-auth's default throws on a callbackUrl that is not a URL (a 500 for a crafted form):
+    // same rule (a path here, or an address on this site), anything else goes home.
+    async redirect({ url, baseUrl }) {
+      if (url.startsWith("/")) return `${baseUrl}${url}`;
+      try {
+        if (new URL(url).origin === baseUrl) return url;
+      } catch {
+        // not a URL at all
+      }
+      return baseUrl;
+    },
   },
 };

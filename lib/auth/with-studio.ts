@@ -2,7 +2,7 @@ import "server-only";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { type Membership, type Role, type Studio, MembershipSchema, StudioSchema } from "@/entities/studio";
 import { getEm } from "@/lib/db";
-import { forbidden, notFound, toErrorResponse, unauthorized } from "@/lib/errors";
+import { forbidden, HttpError, notFound, toErrorResponse, unauthorized } from "@/lib/errors";
 import { can, type Permission } from "./permissions";
 import { getSessionUser, type SessionUser } from "./session";
 
@@ -59,11 +59,47 @@ export function withStudio<P extends { studioId: string }>(
   });
 }
 
-/** Reads a JSON body; an empty or malformed body becomes a clear 400. */
+/** Deeper than any body the app takes (an editor document is the deepest, about a dozen levels). */
+const MAX_BODY_DEPTH = 64;
+
+/** How deep arrays and objects nest in JSON text, counted without parsing it. */
+function nesting(text: string): number {
+  let depth = 0;
+  let max = 0;
+  let inString = false;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (inString) {
+      if (c === 92 /* \ */) i++;
+      else if (c === 34 /* " */) inString = false;
+    } else if (c === 34) inString = true;
+    else if (c === 91 /* [ */ || c === 123 /* { */) max = Math.max(max, ++depth);
+    else if (c === 93 /* ] */ || c === 125 /* } */) depth--;
+  }
+  return max;
+}
+
+/** Text PostgreSQL can store: no NUL character, no half of a surrogate pair (JSON can carry both). */
+function storable(s: string): boolean {
+  return !s.includes("\u0000") && s.isWellFormed();
+}
+
+/**
+ * Reads a JSON body; an empty or malformed body becomes a clear 400. So does one nested past
+ * MAX_BODY_DEPTH: parsing it is fine, but every later step that walks it recursively (zod, JSON
+ * writing, the database driver) would run out of stack. Text the database cannot hold is a 422
+ * here, before any handler could try to write it.
+ */
 export async function readJson(req: Request): Promise<unknown> {
   const text = await req.text();
   if (!text.trim()) return {};
-  return JSON.parse(text);
+  if (nesting(text) > MAX_BODY_DEPTH) throw new HttpError(400, "The request body is nested too deeply.");
+  return JSON.parse(text, (key, value) => {
+    if (!storable(key) || (typeof value === "string" && !storable(value))) {
+      throw new HttpError(422, "Some text holds a character that cannot be saved (a NUL, or half of an emoji). Remove it and try again.");
+    }
+    return value;
+  });
 }
 
 export function isUuid(s: string): boolean {

@@ -84,19 +84,25 @@ const orderedList = z.object({
   content: z.array(listItem).min(1).max(200),
 });
 
+/** Nesting depth of a value, counted no further than just past MAX_DEPTH (so any input is cheap). */
 function depth(v: unknown, d = 0): number {
   if (d > MAX_DEPTH) return d;
-  if (Array.isArray(v)) return Math.max(d, ...v.map((x) => depth(x, d + 1)));
-  if (v && typeof v === "object") return Math.max(d, ...Object.values(v).map((x) => depth(x, d + 1)));
-  return d;
+  const children = Array.isArray(v) ? v : v && typeof v === "object" ? Object.values(v) : [];
+  let max = d;
+  for (const x of children) {
+    max = Math.max(max, depth(x, d + 1));
+    if (max > MAX_DEPTH) break;
+  }
+  return max;
 }
 
 /** The comment document: size and nesting are bounded before the structure is checked. */
 export const commentDoc = z
   .unknown()
   .superRefine((v, ctx) => {
-    if (JSON.stringify(v ?? null).length > MAX_JSON_CHARS) ctx.addIssue({ code: "custom", message: "This comment is too long." });
-    else if (depth(v) > MAX_DEPTH) ctx.addIssue({ code: "custom", message: "Lists are nested too deeply." });
+    // Depth first: depth() stops at MAX_DEPTH, while JSON.stringify of a deep enough value overflows the stack.
+    if (depth(v) > MAX_DEPTH) ctx.addIssue({ code: "custom", message: "Lists are nested too deeply." });
+    else if (JSON.stringify(v ?? null).length > MAX_JSON_CHARS) ctx.addIssue({ code: "custom", message: "This comment is too long." });
   })
   .pipe(z.object({ type: z.literal("doc", { error: notAllowed }), content: z.array(block).min(1).max(200) }))
   .refine((d) => docText(d).trim().length > 0 || mentionIds(d).length > 0 || hasSwatch(d), "Write something first.")

@@ -48,10 +48,19 @@ const tags = z
     { message: "Tags are a list of short words." },
   )
   .max(20, "Use at most 20 tags.");
+/** Length of a value as JSON; Infinity when it cannot be written (nested past the stack's depth). */
+function jsonLength(v: unknown): number {
+  try {
+    return JSON.stringify(v).length;
+  } catch {
+    return Infinity;
+  }
+}
+
 /** Rich notes: the editor's JSON document (`{ type: "doc", content: [...] }`). */
 const notes = z
   .looseObject({ type: z.literal("doc", { message: "Notes must come from the notes editor." }) }, { message: "Notes must come from the notes editor." })
-  .refine((d) => JSON.stringify(d).length <= 100_000, "The notes are too long: keep them under about 50 pages.")
+  .refine((d) => jsonLength(d) <= 100_000, "The notes are too long: keep them under about 50 pages.")
   .nullable();
 const version = z.number({ message: "Reload the trial: the saved version is missing." }).int("Reload the trial: the saved version is not valid.");
 

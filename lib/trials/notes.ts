@@ -13,6 +13,8 @@ export function notesText(doc: Record<string, unknown> | null | undefined): stri
   if (!doc) return "";
   const out: string[] = [];
   const walk = (n: DocNode) => {
+    // The notes schema checks only the outer { type: "doc" }: anything may sit inside.
+    if (!n || typeof n !== "object") return;
     if (typeof n.text === "string") out.push(n.text);
     if (Array.isArray(n.content)) n.content.forEach(walk);
     if (n.type && BLOCKS.has(n.type)) out.push("\n");

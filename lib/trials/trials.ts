@@ -7,7 +7,7 @@ import { type Layer, LayerSchema, type Trial, TrialSchema } from "@/entities/tri
 import { UserSchema } from "@/entities/user";
 import { isUuid } from "@/lib/auth/with-studio";
 import { badRequest, notFound } from "@/lib/errors";
-import type { CopyInput, TrialInput, TrialPatch } from "@/lib/schemas/trial";
+import { type CopyInput, layerDyeInput, layerInput, type TrialInput, type TrialPatch } from "@/lib/schemas/trial";
 import { enteredFromDos } from "./amounts";
 import { loadLibrary, trialDto } from "./dto";
 import { notesText } from "./notes";
@@ -127,12 +127,32 @@ export async function copyTrial(em: EntityManager, studio: Studio, authorId: str
       notesText: "",
       copiedFrom: source,
     });
-    layers.forEach((l, i) => tx.create(LayerSchema, copiedLayer(copy, l, i, fibreG, factor, stocks)));
+    const copied = layers.map((l, i) => copiedLayer(copy, l, i, fibreG, factor, stocks));
+    copied.forEach(checkScaled);
+    copied.forEach((l) => tx.create(LayerSchema, l));
     await tx.flush();
     return copy.id;
   });
   return getTrial(em, studio, id);
 }
+
+/**
+ * Water, acid and measured amounts scale with the fibre weight; a copy at a very different weight
+ * can leave the range a layer may hold (500 L of water, 10 000 of acid, 20 000 of an amount, and
+ * more than nothing of water). Such a copy is refused rather than stored out of range.
+ */
+function checkScaled(l: ReturnType<typeof copiedLayer>): void {
+  const where = `At ${formatGrams(l.trial.fibreWeightG)} g, layer ${l.position + 1}`;
+  const layer = layerInput.safeParse({ method: l.method, acid: l.acid, waterL: l.waterL });
+  const dye = l.dyes.map((d) => layerDyeInput.safeParse({ dyeId: d.dyeId, stockId: d.stockId, amount: d.entered })).find((r) => !r.success);
+  const issue = (!layer.success && layer.error.issues[0]) || (dye && !dye.success && dye.error.issues[0]);
+  if (issue) {
+    const message = `${where} would be out of range. ${issue.message} Copy at a weight nearer the original.`;
+    throw badRequest(message, { fibreWeightG: message });
+  }
+}
+
+const formatGrams = (g: number) => (Math.abs(g) >= 0.01 ? String(Math.round(g * 100) / 100) : g.toExponential(2));
 
 function copiedLayer(
   trial: Trial,

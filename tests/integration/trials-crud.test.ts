@@ -223,6 +223,22 @@ describe("copy: same recipe, new base", () => {
     expect(res.json).toMatchObject({ title: "Teal again", fibreWeightG: 100, base: { id: baseId } });
   });
 
+  it("422 when the scaled water or acid would leave a layer's range, and nothing is stored", async () => {
+    const t = await create();
+    actAs(dyer);
+    const withLayer = await call(layersRoute.POST, "POST", tp(t.id), { body: { method: "immersion", acid: { kind: "vinegar", amount: 30 }, waterL: 5 } });
+    expect(withLayer.status).toBe(201);
+    // 100 g → 20 kg scales 5 L of water to 1 000 L, past the 500 L a layer takes.
+    const big = await call(copyRoute.POST, "POST", tp(t.id), { body: { fibreWeightG: 20_000 } });
+    expect(big.status).toBe(422);
+    expect(big.json.fields.fibreWeightG).toMatch(/^At 20000 g, layer 1 would be out of range\. Enter the water in litres/);
+    // A weight so small the water rounds to nothing.
+    const tiny = await call(copyRoute.POST, "POST", tp(t.id), { body: { fibreWeightG: 5e-324 } });
+    expect(tiny.status).toBe(422);
+    const list = await call(trialsRoute.GET, "GET", { studioId: studio.id });
+    expect(list.json.items.filter((x: { copiedFromId?: string }) => x.copiedFromId === t.id)).toEqual([]);
+  });
+
   it("422 for a bad fibre weight, 404 for another studio's trial", async () => {
     const t = await create();
     const bad = await call(copyRoute.POST, "POST", tp(t.id), { body: { fibreWeightG: -5 } });
