@@ -172,7 +172,8 @@ export const stockPatch = stockShape.partial().extend({ version });
 
 const flag = z.enum(["true", "false"], { message: "Use true or false." }).transform((s) => s === "true");
 const dir = z.enum(["asc", "desc"], { message: "Use asc or desc." }).optional();
-const q = z.string().trim().max(120, "Keep the search under 120 characters.").optional();
+// A NUL cannot go into a PostgreSQL text parameter: refused here instead of failing in the query.
+const q = z.string().trim().max(120, "Keep the search under 120 characters.").refine((s) => !s.includes("\u0000"), "Remove the NUL character from the search.").optional();
 
 export const baseListQuery = z.object({
   q,

@@ -189,17 +189,19 @@ export const layerOrderInput = z.object({
     .refine((ids) => new Set(ids).size === ids.length, "Each layer may appear only once."),
 });
 
+/** A NUL cannot go into a PostgreSQL text parameter: refused here instead of failing in the query. */
+const noNul = (s: string) => !s.includes("\u0000");
 const blankToUndefined = (v: unknown) => (v === "" || v === null ? undefined : v);
 const opt = <T extends z.ZodType>(t: T) => z.preprocess(blankToUndefined, t.optional());
 const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Enter the date as YYYY-MM-DD.").refine((s) => !Number.isNaN(Date.parse(s)), "That date does not exist.");
 
 /** The trial list's search, filters, sort and page, as read from a query string. */
 export const trialQuery = z.object({
-  q: opt(z.string().trim().max(200, "Keep the search under 200 characters.")),
+  q: opt(z.string().trim().max(200, "Keep the search under 200 characters.").refine(noNul, "Remove the NUL character from the search.")),
   baseId: opt(uuid("Choose a base from the list.")),
   dyeId: opt(uuid("Choose a dye from the list.")),
   method: opt(z.enum(LAYER_METHODS, { message: "Choose a method from the list." })),
-  tag: opt(z.string().trim().max(40, "Tags are under 40 characters.")),
+  tag: opt(z.string().trim().max(40, "Tags are under 40 characters.").refine(noNul, "Remove the NUL character from the tag.")),
   authorId: opt(uuid("Choose a person from the list.")),
   status: opt(status),
   from: opt(day),

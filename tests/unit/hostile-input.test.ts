@@ -4,7 +4,8 @@ import { describe, expect, it } from "vitest";
 import { readJson } from "@/lib/auth/with-studio";
 import { HttpError } from "@/lib/errors";
 import { commentDoc } from "@/lib/schemas/comment";
-import { trialInput } from "@/lib/schemas/trial";
+import { baseListQuery, dyeListQuery, stockListQuery } from "@/lib/schemas/library";
+import { trialInput, trialQuery } from "@/lib/schemas/trial";
 import { notesText } from "@/lib/trials/notes";
 
 const nested = (depth: number) => JSON.parse(`${"[".repeat(depth)}1${"]".repeat(depth)}`);
@@ -70,5 +71,14 @@ describe("notesText", () => {
   it("skips what is not a node (the notes schema checks only the outer document)", () => {
     const doc = { type: "doc", content: [null, 5, "loose", { type: "paragraph", content: [null, { type: "text", text: "Rinse warm." }] }] };
     expect(notesText(doc)).toBe("Rinse warm.");
+  });
+});
+
+describe("list queries", () => {
+  it("refuse a NUL in the search or tag (PostgreSQL refuses it in a text parameter)", () => {
+    expect(trialQuery.safeParse({ q: "moss\u0000" }).success).toBe(false);
+    expect(trialQuery.safeParse({ tag: "\u0000" }).success).toBe(false);
+    for (const schema of [baseListQuery, dyeListQuery, stockListQuery]) expect(schema.safeParse({ q: "a\u0000" }).success).toBe(false);
+    expect(trialQuery.safeParse({ q: "moss", tag: "speckle" }).success).toBe(true);
   });
 });
