@@ -310,7 +310,8 @@ interface Figures {
   dbCpuMs: number;
   /** The machine's 1-minute load average at the end of the scenario. */
   loadAvg: number;
-  firstError?: string;
+  /** What the errors were: non-2xx answers, timeouts (autocannon's 10 s), connection failures. */
+  errorKinds: string;
 }
 
 function percentile(sorted: number[], p: number): number {
@@ -355,10 +356,16 @@ async function runScenario(sc: Scenario, cookie: string, pid: number): Promise<F
     p95: percentile(latencies, 95),
     p99: percentile(latencies, 99),
     errors: result.non2xx + result.errors + result.timeouts,
+    errorKinds: [
+      result.non2xx ? `${result.non2xx} non-2xx${firstError ? `, first ${firstError}` : ""}` : "",
+      result.timeouts ? `${result.timeouts} timed out` : "",
+      result.errors - result.timeouts > 0 ? `${result.errors - result.timeouts} failed` : "",
+    ]
+      .filter(Boolean)
+      .join(", "),
     serverCpuMs: ((cpu1.server - cpu0.server) * 1000) / Math.max(1, latencies.length),
     dbCpuMs: ((cpu1.db - cpu0.db) * 1000) / Math.max(1, latencies.length),
     loadAvg: loadAverage(),
-    firstError,
   };
 }
 
@@ -373,7 +380,7 @@ function report(all: Figures[]) {
       ms(f.p50),
       ms(f.p95),
       ms(f.p99),
-      String(f.errors) + (f.firstError ? ` (${f.firstError})` : ""),
+      String(f.errors) + (f.errorKinds ? ` (${f.errorKinds})` : ""),
       f.serverCpuMs.toFixed(1),
       f.dbCpuMs.toFixed(1),
       f.loadAvg.toFixed(1),
@@ -383,9 +390,11 @@ function report(all: Figures[]) {
   const widths = rows[0].map((_, i) => Math.max(...rows.map((r) => r[i].length)));
   console.log("");
   for (const r of rows) console.log(r.map((c, i) => (i === 0 || i === 10 ? c.padEnd(widths[i]) : c.padStart(widths[i]))).join("  "));
+  // Little's law: with c requests always in flight, the mean latency is c ÷ throughput.
+  console.log(`\nWith ${connections} connections, a mean latency of ${GOAL_P95_MS} ms needs ${Math.round((connections * 1000) / GOAL_P95_MS)} requests/s (connections ÷ throughput).`);
   const reads = all.filter((f) => f.read);
   const met = reads.filter((f) => f.p95 <= GOAL_P95_MS && f.errors === 0).length;
-  console.log(`\nreads meeting p95 ≤ ${GOAL_P95_MS} ms: ${met} of ${reads.length}` + (met === reads.length ? " — goal met" : " — goal missed"));
+  console.log(`reads meeting p95 ≤ ${GOAL_P95_MS} ms: ${met} of ${reads.length}` + (met === reads.length ? " — goal met" : " — goal missed"));
   const cores = availableParallelism();
   console.log(`(${connections} connections, ${seconds} s each; autocannon, the server and Postgres share this machine's ${cores} cores)`);
   const busiest = Math.max(...all.map((f) => f.loadAvg));
@@ -415,4 +424,7 @@ try {
   report(all);
 } finally {
   await stopServer();
+}
+if (opt.profile) {
+  step(`CPU profile of the server in ${opt.profile}; summarise it with node --import tsx scripts/load/profile-summary.ts FILE --from SECONDS`);
 }
