@@ -4,7 +4,8 @@
 // and the restored row counts are compared with the backup's.
 //
 // Refuses when the database already has studios or the bucket already holds any of the keys,
-// unless --force: then the dumped tables are dropped and recreated and those objects overwritten.
+// unless --force: then the database's public schema (and pg-boss's) is replaced by the backup's
+// and those objects are overwritten.
 import {
   CreateBucketCommand,
   GetObjectCommand,
@@ -14,7 +15,8 @@ import {
   S3ServiceException,
 } from "@aws-sdk/client-s3";
 import { createHash } from "node:crypto";
-import { existsSync, readFileSync, readdirSync } from "node:fs";
+import { existsSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import type { Readable } from "node:stream";
 import { env } from "../lib/env";
@@ -35,6 +37,38 @@ try {
   }
   console.error(`restore failed: ${e instanceof Error ? e.message : String(e)}`);
   process.exit(1);
+}
+
+function ident(s: string): string {
+  return `"${s.replace(/"/g, '""')}"`;
+}
+
+/**
+ * Empties the target (the public schema and the backup's other schemas, recreated as a fresh
+ * database has them) and loads the dump, in one psql transaction: on any error nothing changes.
+ * pg_restore first writes the dump as SQL to a file, so a failure there stops before psql runs.
+ */
+async function restoreDump(dump: string, otherSchemas: string[]): Promise<void> {
+  const work = mkdtempSync(join(tmpdir(), "undertone-restore-"));
+  try {
+    const reset = join(work, "reset.sql");
+    const load = join(work, "load.sql");
+    writeFileSync(
+      reset,
+      [
+        ...otherSchemas.map((s) => `drop schema if exists ${ident(s)} cascade;`),
+        "drop schema if exists public cascade;",
+        "create schema public;",
+        "alter schema public owner to pg_database_owner;",
+        "grant usage on schema public to public;",
+        "",
+      ].join("\n"),
+    );
+    await runPg("pg_restore", ["--no-owner", "--no-privileges", `--file=${load}`, dump]);
+    await runPg("psql", ["-X", "-q", "-v", "ON_ERROR_STOP=1", "--single-transaction", "-f", reset, "-f", load, `--dbname=${env.DATABASE_URL}`]);
+  } finally {
+    rmSync(work, { recursive: true, force: true });
+  }
 }
 
 async function restore() {
@@ -102,17 +136,11 @@ async function restore() {
       throw new Refusal(`the bucket ${bucket} already holds ${clashes} of the backup's keys. Use an empty bucket, or pass --force to overwrite them.`);
     }
 
-    // 3. The database: the dumped tables are dropped if present and recreated, in one transaction.
-    await runPg("pg_restore", [
-      `--dbname=${env.DATABASE_URL}`,
-      "--clean",
-      "--if-exists",
-      "--no-owner",
-      "--no-privileges",
-      "--single-transaction",
-      "--exit-on-error",
-      join(dir, DUMP),
-    ]);
+    // 3. The database, in one transaction: the backup's schemas are dropped and created afresh, then
+    // the dump's SQL runs. (pg_restore --clean cannot drop pg-boss's partitioned tables: a
+    // partition's inherited key refuses to go first.)
+    const schemas = [...new Set(Object.keys(manifest.database.rows).filter((t) => t.includes(".")).map((t) => t.split(".")[0]))];
+    await restoreDump(join(dir, DUMP), schemas);
     const rows = await rowCounts((sql) => em.execute(sql));
     const wrong = Object.entries(manifest.database.rows).filter(([t, n]) => rows[t] !== n);
     if (wrong.length) {

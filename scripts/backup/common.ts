@@ -67,7 +67,7 @@ export function pgBin(): string {
 /** Runs a Postgres program; rejects with its stderr when it fails. */
 export function runPg(program: string, args: string[]): Promise<void> {
   return new Promise((resolve, reject) => {
-    const child = spawn(join(pgBin(), program), args, { stdio: ["ignore", "inherit", "pipe"] });
+    const child = spawn(join(pgBin(), program), args, { stdio: ["ignore", "ignore", "pipe"] });
     let stderr = "";
     child.stderr.on("data", (d: Buffer) => (stderr += d.toString()));
     child.on("error", reject);
@@ -89,16 +89,24 @@ export function openDb(): Promise<MikroORM> {
   return MikroORM.init({ ...config, clientUrl: env.DATABASE_URL, pool: { min: 0, max: 2 } });
 }
 
-/** Row counts of every ordinary table in the public schema, by table name. */
+/** Schemas that hold data: the app's tables in public, pg-boss's jobs in its own schema. */
+export const DATA_SCHEMAS = "schemaname not in ('pg_catalog', 'information_schema') and schemaname not like 'pg\\_%'";
+
+/** A table's name for reports: bare in public, schema-qualified elsewhere. */
+export function tableLabel(schema: string, table: string): string {
+  return schema === "public" ? table : `${schema}.${table}`;
+}
+
+const ident = (s: string) => `"${s.replace(/"/g, '""')}"`;
+
+/** Row counts of every table in every data schema, by tableLabel. */
 export async function rowCounts(run: (sql: string) => Promise<Record<string, unknown>[]>): Promise<Record<string, number>> {
-  const tables = await run(
-    "select tablename from pg_tables where schemaname = 'public' order by tablename",
-  );
+  const tables = await run(`select schemaname, tablename from pg_tables where ${DATA_SCHEMAS} order by 1, 2`);
   const out: Record<string, number> = {};
   for (const t of tables) {
-    const name = String(t.tablename);
-    const [r] = await run(`select count(*)::int as n from "${name.replace(/"/g, '""')}"`);
-    out[name] = Number(r.n);
+    const [schema, name] = [String(t.schemaname), String(t.tablename)];
+    const [r] = await run(`select count(*)::int as n from ${ident(schema)}.${ident(name)}`);
+    out[tableLabel(schema, name)] = Number(r.n);
   }
   return out;
 }

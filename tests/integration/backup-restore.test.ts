@@ -19,12 +19,14 @@ import {
   PutObjectCommand,
 } from "@aws-sdk/client-s3";
 import { MikroORM } from "@mikro-orm/postgresql";
+import PgBoss from "pg-boss";
 import config from "@/mikro-orm.config";
 import { PhotoSchema, StudioSchema, TrialSchema, UserSchema } from "@/entities";
 import { env } from "@/lib/env";
+import { BOSS_SCHEMA } from "@/lib/jobs/boss";
 import { storageClient } from "@/lib/storage";
 import { makeVariants } from "@/lib/photos/process";
-import type { Manifest } from "@/scripts/backup/common";
+import { DATA_SCHEMAS, type Manifest, tableLabel } from "@/scripts/backup/common";
 
 const root = fileURLToPath(new URL("../..", import.meta.url));
 const base = new URL(env.DATABASE_URL);
@@ -156,6 +158,16 @@ async function addPhotos(orm: MikroORM) {
   await em.flush();
 }
 
+/** A queued job, so pg-boss's own schema (its tables and a row) is part of what is backed up. */
+async function addJob() {
+  const boss = new PgBoss({ connectionString: urlOf(SOURCE_DB), schema: BOSS_SCHEMA, supervise: false, schedule: false, migrate: true, max: 1 });
+  boss.on("error", () => undefined);
+  await boss.start();
+  await boss.createQueue("outbox-flush", { name: "outbox-flush" });
+  await boss.send("outbox-flush", {}, { startAfter: new Date(Date.now() + 86_400_000) });
+  await boss.stop({ graceful: false, wait: true });
+}
+
 /**
  * The schema as the catalogue describes it: columns with types, nullability and defaults, every
  * index's definition, and the constraints by name, kind and table. A check constraint's text is
@@ -166,25 +178,25 @@ async function schemaOf(orm: MikroORM): Promise<string[]> {
   const em = orm.em.fork();
   const rows = await em.execute<{ r: string }[]>(`
     select format('column %s.%s %s null=%s default=%s', table_name, column_name, data_type, is_nullable, column_default) as r
-      from information_schema.columns where table_schema = 'public'
+      from information_schema.columns where ${DATA_SCHEMAS.replaceAll("schemaname", "table_schema")}
     union all
-    select format('index %s', indexdef) from pg_indexes where schemaname = 'public'
+    select format('index %s', indexdef) from pg_indexes where ${DATA_SCHEMAS}
     union all
     select format('constraint %s %s on %s%s', c.conname, c.contype, c.conrelid::regclass,
                   case when c.contype = 'c' then '' else ' ' || pg_get_constraintdef(c.oid) end)
-      from pg_constraint c join pg_namespace n on n.oid = c.connamespace where n.nspname = 'public'
+      from pg_constraint c join pg_namespace n on n.oid = c.connamespace where ${DATA_SCHEMAS.replaceAll("schemaname", "n.nspname")}
     order by 1`);
   return rows.map((x) => x.r);
 }
 
-/** Every table's rows as text, in a fixed order. */
+/** Every table's rows as text, in a fixed order, in every data schema (public and pg-boss's). */
 async function tableDump(orm: MikroORM): Promise<Map<string, string[]>> {
   const em = orm.em.fork();
-  const tables = await em.execute<{ t: string }[]>("select tablename as t from pg_tables where schemaname = 'public' order by 1");
+  const tables = await em.execute<{ s: string; t: string }[]>(`select schemaname as s, tablename as t from pg_tables where ${DATA_SCHEMAS} order by 1, 2`);
   const out = new Map<string, string[]>();
-  for (const { t } of tables) {
-    const rows = await em.execute<{ r: string }[]>(`select x::text as r from "${t}" x order by 1`);
-    out.set(t, rows.map((r) => r.r));
+  for (const { s, t } of tables) {
+    const rows = await em.execute<{ r: string }[]>(`select x::text as r from "${s}"."${t}" x order by 1`);
+    out.set(tableLabel(s, t), rows.map((r) => r.r));
   }
   return out;
 }
@@ -203,6 +215,7 @@ beforeAll(async () => {
     expect(r.code, `${script}: ${r.out}\n${r.err}`).toBe(0);
   }
   await addPhotos(await open(SOURCE_DB));
+  await addJob();
 }, 180_000);
 
 afterAll(async () => {
@@ -234,6 +247,7 @@ describe("backup and restore", () => {
     const source = await tableDump(await open(SOURCE_DB));
     expect(manifest.database.rows).toEqual(Object.fromEntries([...source].map(([t, rows]) => [t, rows.length])));
     expect(manifest.database.rows.photos).toBeGreaterThanOrEqual(3);
+    expect(manifest.database.rows[`${BOSS_SCHEMA}.job`]).toBeGreaterThanOrEqual(1);
     expect(manifest.database.rows.studios).toBe(1);
   }, 120_000);
 
