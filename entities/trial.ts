@@ -31,7 +31,16 @@ export interface Trial extends Base {
 export const TrialSchema = new EntitySchema<Trial>({
   name: "Trial",
   tableName: "trials",
-  indexes: [{ properties: ["studio", "createdAt"] }],
+  // One index per sort order of the trial list (studio, sort key, id as the tie-break), so a page is
+  // read in order from the index instead of sorting every trial of the studio.
+  indexes: [
+    { properties: ["studio", "createdAt", "id"] },
+    { properties: ["studio", "updatedAt", "id"] },
+    {
+      name: "trials_studio_id_lower_title_id_index",
+      expression: 'create index "trials_studio_id_lower_title_id_index" on "trials" ("studio_id", lower("title"), "id")',
+    },
+  ],
   properties: {
     ...baseProperties,
     studio: { kind: "m:1", entity: "Studio", ref: true, deleteRule: "cascade" },

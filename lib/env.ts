@@ -23,6 +23,8 @@ const schema = z.object({
   UNDERTONE_WORKER: z.enum(["on", "off"]).default("on"),
   /** POST /api/internal/outbox/flush: "on" or "off"; unset means on outside production. */
   OUTBOX_FLUSH_ROUTE: z.enum(["on", "off"]).optional(),
+  /** Folder of pg_dump and pg_restore for npm run backup/restore; unset means the newest Debian one. */
+  PG_BIN: z.string().optional(),
 });
 
 export type Env = z.infer<typeof schema>;

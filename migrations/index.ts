@@ -6,6 +6,7 @@ import { Migration20261202011047_photos } from "./Migration20261202011047_photos
 import { Migration20261202011154_comments } from "./Migration20261202011154_comments";
 import { Migration20261202013432_colourways } from "./Migration20261202013432_colourways";
 import { Migration20261202050458_rate_limits } from "./Migration20261202050458_rate_limits";
+import { Migration20261202052432_trial_list_order } from "./Migration20261202052432_trial_list_order";
 
 export const migrationsList: MigrationObject[] = [
   { name: "Migration20261202005358_studios", class: Migration20261202005358_studios },
@@ -14,4 +15,5 @@ export const migrationsList: MigrationObject[] = [
   { name: "Migration20261202011154_comments", class: Migration20261202011154_comments },
   { name: "Migration20261202013432_colourways", class: Migration20261202013432_colourways },
   { name: "Migration20261202050458_rate_limits", class: Migration20261202050458_rate_limits },
+  { name: "Migration20261202052432_trial_list_order", class: Migration20261202052432_trial_list_order },
 ];

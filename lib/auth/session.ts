@@ -17,10 +17,19 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
  * each time, so a deleted account counts as signed out and a renamed one shows its new name.
  */
 export async function getSessionUser(): Promise<SessionUser | null> {
-  const session = await getServerSession(authOptions);
-  const id = session?.user?.id;
-  if (typeof id !== "string" || !UUID.test(id)) return null;
+  const id = await getSessionUserId();
+  if (!id) return null;
   const em = await getEm();
   const u = await em.findOne(UserSchema, { id });
   return u ? { id: u.id, email: u.email, name: u.name } : null;
+}
+
+/**
+ * The user id the session's JWT names, or null; nothing is read from the database. Callers must
+ * still load the user (withStudio reads it together with the membership, in one query).
+ */
+export async function getSessionUserId(): Promise<string | null> {
+  const session = await getServerSession(authOptions);
+  const id = session?.user?.id;
+  return typeof id === "string" && UUID.test(id) ? id : null;
 }

@@ -1,10 +1,11 @@
 import "server-only";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { type Membership, type Role, type Studio, MembershipSchema, StudioSchema } from "@/entities/studio";
+import { UserSchema } from "@/entities/user";
 import { getEm } from "@/lib/db";
 import { forbidden, HttpError, notFound, toErrorResponse, unauthorized } from "@/lib/errors";
 import { can, type Permission } from "./permissions";
-import { getSessionUser, type SessionUser } from "./session";
+import { getSessionUser, getSessionUserId, type SessionUser } from "./session";
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
@@ -45,18 +46,29 @@ export function withStudio<P extends { studioId: string }>(
   handler: (ctx: StudioContext<P>) => Promise<Response>,
   opts: { can: Permission },
 ) {
-  return withUser<P>(async (ctx) => {
-    const { studioId } = ctx.params;
-    if (!UUID.test(studioId)) throw notFound("This studio");
-    const membership = await ctx.em.findOne(
-      MembershipSchema,
-      { studio: studioId, user: ctx.user.id },
-      { populate: ["studio"] },
-    );
-    if (!membership) throw notFound("This studio");
-    if (!can(membership.role, opts.can)) throw forbidden();
-    return handler({ ...ctx, studio: membership.studio.getEntity(), membership, role: membership.role });
-  });
+  return async (req: Request, args: RouteArgs<P>): Promise<Response> => {
+    try {
+      const userId = await getSessionUserId();
+      if (!userId) throw unauthorized();
+      const params = await args.params;
+      const em = await getEm();
+      // The user, the membership and the studio in one query: every studio route pays for it.
+      const membership = UUID.test(params.studioId)
+        ? await em.findOne(MembershipSchema, { studio: params.studioId, user: userId }, { populate: ["studio", "user"] })
+        : null;
+      if (!membership) {
+        // As withUser: a deleted account is signed out (401), not merely outside the studio.
+        if (!(await em.findOne(UserSchema, { id: userId }))) throw unauthorized();
+        throw notFound("This studio");
+      }
+      if (!can(membership.role, opts.can)) throw forbidden();
+      const u = membership.user.getEntity();
+      const user: SessionUser = { id: u.id, email: u.email, name: u.name };
+      return await handler({ req, em, user, params, studio: membership.studio.getEntity(), membership, role: membership.role });
+    } catch (e) {
+      return toErrorResponse(e);
+    }
+  };
 }
 
 /** Deeper than any body the app takes (an editor document is the deepest, about a dozen levels). */

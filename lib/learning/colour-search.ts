@@ -97,6 +97,6 @@ export async function searchByColour(
   q: { L?: number; a?: number; b?: number; hex?: string; limit: number },
 ) {
   const target: Lab = q.hex ? hexToLab(q.hex.startsWith("#") ? q.hex : `#${q.hex}`) : { L: q.L!, a: q.a!, b: q.b! };
-  const [readings, colourways] = [await nearestReadings(em, studio.id, target, q.limit), await nearestColourways(em, studio, target, q.limit)];
+  const [readings, colourways] = await Promise.all([nearestReadings(em, studio.id, target, q.limit), nearestColourways(em, studio, target, q.limit)]);
   return { target, readings, colourways };
 }

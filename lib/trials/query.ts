@@ -4,7 +4,6 @@ import { DyeSchema, YarnBaseSchema } from "@/entities/library";
 import type { Studio } from "@/entities/studio";
 import { LayerSchema, type Layer, type Trial, TrialSchema } from "@/entities/trial";
 import type { TrialQuery } from "@/lib/schemas/trial";
-import { loadLibrary } from "./dto";
 import type { TrialFacets, TrialPage, TrialSummaryDto } from "./types";
 
 // The trial list: search over title, notes, dye names and base name; filters; sort; pages — all in
@@ -66,6 +65,12 @@ export function whereFor(studio: Studio, q: TrialQuery): { sql: string; params: 
 
 const SORTS = { updated: "t.updated_at", created: "t.created_at", title: "lower(t.title)" } as const;
 
+/** The sort key and direction of a query; the id breaks ties in the same direction. */
+function orderFor(q: TrialQuery): { key: string; dir: "asc" | "desc" } {
+  const dir = (q.dir ?? (q.sort === "title" ? "asc" : "desc")) === "asc" ? "asc" : "desc";
+  return { key: SORTS[q.sort], dir };
+}
+
 /** The ids of matching trials in order (all of them when `page` is absent) and the total. */
 export async function matchingIds(
   em: EntityManager,
@@ -75,8 +80,8 @@ export async function matchingIds(
 ): Promise<{ ids: string[]; total: number }> {
   const { sql, params } = whereFor(studio, q);
   const from = `from trials t left join yarn_bases b on b.id = t.base_id where ${sql}`;
-  const dir = (q.dir ?? (q.sort === "title" ? "asc" : "desc")) === "asc" ? "asc" : "desc";
-  const order = `order by ${SORTS[q.sort]} ${dir}, t.id ${dir}`;
+  const { key, dir } = orderFor(q);
+  const order = `order by ${key} ${dir}, t.id ${dir}`;
   const limit = page ? ` limit ${page.pageSize} offset ${(page.page - 1) * page.pageSize}` : " limit 5000";
   const conn = em.getConnection();
   const [rows, count] = await Promise.all([
@@ -99,36 +104,76 @@ export async function loadInOrder(em: EntityManager, ids: string[]): Promise<{ t
   return { trials: ids.map((id) => byId.get(id)).filter((t): t is Trial => !!t), layers: byTrial };
 }
 
+interface SummaryRow {
+  id: string;
+  title: string;
+  status: TrialSummaryDto["status"];
+  tags: string[];
+  fibre_weight_g: number;
+  created_at: Date;
+  updated_at: Date;
+  version: number;
+  author_id: string;
+  author_name: string;
+  base_id: string | null;
+  base_name: string | null;
+  methods: TrialSummaryDto["methods"];
+  dyes: TrialSummaryDto["dyes"];
+}
+
+/**
+ * One page of the list in a single query (the total in a second, alongside): the page's ids are
+ * read in order through the sort's index, then each row gets its author and base names, its
+ * layers' methods in layer order and each dye once, in order of first use, named from the
+ * studio's library. Nothing is loaded as entities: the list only shows these fields.
+ */
 export async function listTrials(em: EntityManager, studio: Studio, q: TrialQuery): Promise<TrialPage> {
-  const { ids, total } = await matchingIds(em, studio, q, { page: q.page, pageSize: q.pageSize });
-  const { trials, layers } = await loadInOrder(em, ids);
-  const lib = await loadLibrary(em, studio, [...layers.values()].flat().flatMap((l) => l.dyes));
-  const items = trials.map((t): TrialSummaryDto => {
-    const ls = layers.get(t.id) ?? [];
-    const seen = new Map<string, TrialSummaryDto["dyes"][number]>();
-    for (const d of ls.flatMap((l) => l.dyes)) {
-      if (seen.has(d.dyeId)) continue;
-      const dye = lib.dyes.get(d.dyeId);
-      seen.set(d.dyeId, { dyeId: d.dyeId, name: dye?.name ?? "Removed dye", displayHex: dye?.displayHex ?? null });
-    }
-    const base = t.base?.isInitialized() ? t.base.getEntity() : null;
-    return {
-      id: t.id,
-      title: t.title,
-      status: t.status,
-      tags: t.tags,
-      fibreWeightG: t.fibreWeightG,
-      createdAt: t.createdAt.toISOString(),
-      updatedAt: t.updatedAt.toISOString(),
-      version: t.version,
-      author: { id: t.author.id, name: t.author.getEntity().name },
-      base: base ? { id: base.id, name: base.name } : null,
-      layerCount: ls.length,
-      methods: [...new Set(ls.map((l) => l.method))],
-      dyes: [...seen.values()],
-    };
-  });
-  return { items, total, page: q.page, pageSize: q.pageSize };
+  const { sql, params } = whereFor(studio, q);
+  const { key, dir } = orderFor(q);
+  const from = `from trials t left join yarn_bases b on b.id = t.base_id where ${sql}`;
+  const pageSql = `
+    select t.id, t.title, t.status, t.tags, t.fibre_weight_g, t.created_at, t.updated_at, t.version,
+           t.author_id, u.name as author_name, t.base_id, b.name as base_name,
+           coalesce(ls.methods, '[]'::jsonb) as methods, coalesce(ds.dyes, '[]'::jsonb) as dyes
+    from (select t.id, ${key} as k ${from} order by k ${dir}, t.id ${dir}
+          limit ${q.pageSize} offset ${(q.page - 1) * q.pageSize}) p
+    join trials t on t.id = p.id
+    join users u on u.id = t.author_id
+    left join yarn_bases b on b.id = t.base_id
+    left join lateral (select jsonb_agg(l.method order by l.position) as methods from layers l where l.trial_id = t.id) ls on true
+    left join lateral (
+      select jsonb_agg(jsonb_build_object('dyeId', e.dye_id, 'name', coalesce(dy.name, 'Removed dye'), 'displayHex', dy.display_hex)
+                       order by e.position, e.ord) as dyes
+      from (select distinct on (x.value->>'dyeId') x.value->>'dyeId' as dye_id, l.position, x.ord
+            from layers l cross join lateral jsonb_array_elements(l.dyes) with ordinality as x(value, ord)
+            where l.trial_id = t.id
+            order by x.value->>'dyeId', l.position, x.ord) e
+      left join dyes dy on dy.id::text = e.dye_id and dy.studio_id = t.studio_id
+    ) ds on true
+    order by p.k ${dir}, p.id ${dir}`;
+  const conn = em.getConnection();
+  const [rows, count] = await Promise.all([
+    conn.execute<SummaryRow[]>(pageSql, params),
+    conn.execute<{ n: string }[]>(`select count(*) as n ${from}`, params),
+  ]);
+  const items = rows.map(
+    (r): TrialSummaryDto => ({
+      id: r.id,
+      title: r.title,
+      status: r.status,
+      tags: r.tags,
+      fibreWeightG: r.fibre_weight_g,
+      createdAt: new Date(r.created_at).toISOString(),
+      updatedAt: new Date(r.updated_at).toISOString(),
+      version: r.version,
+      author: { id: r.author_id, name: r.author_name },
+      base: r.base_id ? { id: r.base_id, name: r.base_name ?? "" } : null,
+      layerCount: r.methods.length,
+      methods: [...new Set(r.methods)],
+      dyes: r.dyes,
+    }),
+  );
+  return { items, total: Number(count[0]?.n ?? 0), page: q.page, pageSize: q.pageSize };
 }
 
 /** What the filters offer: the studio's bases and dyes, and the tags and authors its trials use. */

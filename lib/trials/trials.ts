@@ -4,7 +4,6 @@ import type { EntityManager } from "@mikro-orm/postgresql";
 import { StockSolutionSchema, YarnBaseSchema } from "@/entities/library";
 import type { Studio } from "@/entities/studio";
 import { type Layer, LayerSchema, type Trial, TrialSchema } from "@/entities/trial";
-import { UserSchema } from "@/entities/user";
 import { isUuid } from "@/lib/auth/with-studio";
 import { badRequest, notFound } from "@/lib/errors";
 import { type CopyInput, layerDyeInput, layerInput, type TrialInput, type TrialPatch } from "@/lib/schemas/trial";
@@ -34,12 +33,14 @@ async function checkBase(em: EntityManager, studio: Studio, baseId: string | nul
 export async function getTrial(em: EntityManager, studio: Studio, trialId: string): Promise<TrialDto> {
   const fresh = em.fork();
   if (!isUuid(trialId)) throw notFound("This trial");
-  const trial = await fresh.findOne(TrialSchema, { id: trialId, studio: studio.id }, { populate: ["base", "copiedFrom"] });
-  if (!trial) throw notFound("This trial");
-  const [layers, author] = await Promise.all([
-    fresh.find(LayerSchema, { trial }, { orderBy: { position: "asc" } }),
-    fresh.findOneOrFail(UserSchema, { id: trial.author.id }),
+  // The layers are read alongside the trial (two round trips in all, with the library); when the
+  // trial is not in this studio they are dropped unseen.
+  const [trial, layers] = await Promise.all([
+    fresh.findOne(TrialSchema, { id: trialId, studio: studio.id }, { populate: ["base", "copiedFrom", "author"] }),
+    fresh.find(LayerSchema, { trial: trialId }, { orderBy: { position: "asc" } }),
   ]);
+  if (!trial) throw notFound("This trial");
+  const author = trial.author.getEntity();
   const lib = await loadLibrary(fresh, studio.id, layers.flatMap((l) => l.dyes));
   const source = trial.copiedFrom?.isInitialized() ? trial.copiedFrom.getEntity() : null;
   return trialDto({

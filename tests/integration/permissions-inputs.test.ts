@@ -168,6 +168,11 @@ describe("a session whose account is gone", () => {
     expect(res.status).toBe(401);
   });
 
+  it("a studio route → 401, not 404: the account is gone, not merely outside the studio", async () => {
+    actAs(ghost);
+    expect((await call(studioRoute.GET, "GET", p())).status).toBe(401);
+  });
+
   it("a session id that is not a UUID → 401", async () => {
     actAs({ ...ghost, id: "forged" });
     expect((await call(studioRoute.GET, "GET", p())).status).toBe(401);

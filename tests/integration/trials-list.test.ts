@@ -189,6 +189,41 @@ describe("rows", () => {
     });
   });
 
+  it("sum up several layers: each method and dye once, in layer order; another studio's dye shows as removed", async () => {
+    const s = await makeStudio("Layered List Studio", [[owner, "owner"]]);
+    const alder = await makeDye(s.id, "Alder Rust", { displayHex: "#8a3b1f" });
+    const birch = await makeDye(s.id, "Birch Pale");
+    const copper = await makeDye(s.id, "Copper Deep", { displayHex: "#b0642a" });
+    const foreign = dyes[0];
+    await makeTrial(s.id, {
+      title: "Three layers",
+      authorId: owner.id,
+      layers: [
+        { method: "kettle", dyes: [dosDye(birch, 1), dosDye(alder, 1)] },
+        { method: "dip", dyes: [dosDye(copper, 1), dosDye(birch, 2), dosDye(foreign, 1)] },
+        { method: "kettle", dyes: [dosDye(alder, 0.5)] },
+      ],
+    });
+    await makeTrial(s.id, { title: "No layers yet", authorId: owner.id });
+    actAs(owner);
+    const res = await trialsRoute.GET(new Request("http://127.0.0.1/api?sort=title"), { params: Promise.resolve({ studioId: s.id }) });
+    const { items, total } = await res.json();
+    expect(total).toBe(2);
+    expect(items[0]).toMatchObject({ title: "No layers yet", layerCount: 0, methods: [], dyes: [], base: null });
+    expect(items[1]).toMatchObject({
+      title: "Three layers",
+      author: { id: owner.id },
+      layerCount: 3,
+      methods: ["kettle", "dip"],
+      dyes: [
+        { dyeId: birch, name: "Birch Pale", displayHex: null },
+        { dyeId: alder, name: "Alder Rust", displayHex: "#8a3b1f" },
+        { dyeId: copper, name: "Copper Deep", displayHex: "#b0642a" },
+        { dyeId: foreign, name: "Removed dye", displayHex: null },
+      ],
+    });
+  });
+
   it("facets list the studio's bases, dyes, tags and authors", async () => {
     actAs(guest);
     const f = await call(facetsRoute.GET, "GET", { studioId: studio.id });
