@@ -7,6 +7,7 @@ import { expect, test } from "@playwright/test";
 import sharp from "sharp";
 import { deltaE00, renderPhoto } from "@/colour";
 import { authFile, layoutFaults, shot } from "./helpers";
+import { parseLab } from "./photo-steps";
 
 test.use({ storageState: authFile("dyer") });
 
@@ -22,13 +23,6 @@ const s3 = new S3Client({
 async function keysUnder(prefix: string): Promise<string[]> {
   const out = await s3.send(new ListObjectsV2Command({ Bucket: BUCKET, Prefix: prefix }));
   return (out.Contents ?? []).map((o) => o.Key!).sort();
-}
-
-/** Reads "L* 48.1 · a* 31.7 · b* -18.2" back into numbers. */
-function parseLab(text: string) {
-  const m = text.match(/L\*\s*(-?[\d.]+)\s*·\s*a\*\s*(-?[\d.]+)\s*·\s*b\*\s*(-?[\d.]+)/);
-  expect(m, `Lab text in "${text}"`).toBeTruthy();
-  return { L: Number(m![1]), a: Number(m![2]), b: Number(m![3]) };
 }
 
 test("upload a swatch photo, mark the card and the yarn, read its colour", async ({ page }, info) => {
