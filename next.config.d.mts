@@ -2,5 +2,6 @@
 import type { NextConfig } from "next";
 
 export declare const securityHeaders: { key: string; value: string }[];
+export declare const apiContentSecurityPolicy: string;
 declare const nextConfig: NextConfig;
 export default nextConfig;

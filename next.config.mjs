@@ -1,5 +1,5 @@
-// Fixed security headers for every response. The Content-Security-Policy is not here: it carries
-// a per-request nonce, so proxy.ts sets it (lib/security/csp.ts says what it allows and why).
+// Fixed security headers for every response. The pages' Content-Security-Policy is not here: it
+// carries a per-request nonce, so proxy.ts sets it (lib/security/csp.ts says what it allows and why).
 export const securityHeaders = [
   // Older browsers' form of frame-ancestors 'none': no site may frame Undertone.
   { key: "X-Frame-Options", value: "DENY" },
@@ -13,6 +13,12 @@ export const securityHeaders = [
   { key: "Cross-Origin-Opener-Policy", value: "same-origin" },
 ];
 
+// The API's policy, fixed: its answers are JSON, and the few HTML ones (unsubscribe, next-auth's
+// own fallback pages) are a form with inline styles. No script, no frame, no plugin, nothing
+// loaded from anywhere; forms post back to this site only.
+export const apiContentSecurityPolicy =
+  "default-src 'none'; style-src 'unsafe-inline'; img-src 'self' data:; form-action 'self'; base-uri 'none'; frame-ancestors 'none'";
+
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   serverExternalPackages: [
@@ -25,7 +31,10 @@ const nextConfig = {
   ],
   poweredByHeader: false,
   async headers() {
-    return [{ source: "/:path*", headers: securityHeaders }];
+    return [
+      { source: "/:path*", headers: securityHeaders },
+      { source: "/api/:path*", headers: [{ key: "Content-Security-Policy", value: apiContentSecurityPolicy }] },
+    ];
   },
   // The build checks the app's own code; tests and scripts are checked by `npm run typecheck`.
   typescript: { tsconfigPath: "tsconfig.build.json" },

@@ -1,8 +1,7 @@
 import "server-only";
-import { getServerSession } from "next-auth";
 import { UserSchema } from "@/entities/user";
 import { getEm } from "@/lib/db";
-import { authOptions } from "./options";
+import { sessionUserIdFromCookies } from "./session-token";
 
 export interface SessionUser {
   id: string;
@@ -29,7 +28,6 @@ export async function getSessionUser(): Promise<SessionUser | null> {
  * still load the user (withStudio reads it together with the membership, in one query).
  */
 export async function getSessionUserId(): Promise<string | null> {
-  const session = await getServerSession(authOptions);
-  const id = session?.user?.id;
-  return typeof id === "string" && UUID.test(id) ? id : null;
+  const id = await sessionUserIdFromCookies();
+  return id && UUID.test(id) ? id : null;
 }

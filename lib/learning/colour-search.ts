@@ -1,7 +1,7 @@
 import "server-only";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { deltaE00, hexToLab, type Lab } from "@/colour";
-import { ColourwaySchema, type Studio } from "@/entities";
+import type { Studio } from "@/entities";
 import { de00LowerBound, radiusFor } from "./colour-bound";
 
 export interface ColourMatch {
@@ -79,13 +79,16 @@ export async function nearestReadings(em: EntityManager, studioId: string, targe
   }
 }
 
-/** Colourways nearest a colour (a studio has few: compared one by one). */
+/** Colourways nearest a colour (a studio has few: compared one by one; plain rows, no entities). */
 export async function nearestColourways(em: EntityManager, studio: Studio, target: Lab, k: number): Promise<ColourMatch[]> {
-  const list = await em.find(ColourwaySchema, { studio, status: { $ne: "retired" } });
+  const list = await em.getConnection().execute<{ id: string; name: string; source_trial_id: string; target_l: number; target_a: number; target_b: number }[]>(
+    "select id, name, source_trial_id, target_l, target_a, target_b from colourways where studio_id = ? and status <> 'retired'",
+    [studio.id],
+  );
   return list
     .map((c) => {
-      const lab = { L: c.targetL, a: c.targetA, b: c.targetB };
-      return { kind: "colourway" as const, id: c.id, trialId: c.sourceTrial.id, title: c.name, lab, de00: deltaE00(target, lab) };
+      const lab = { L: c.target_l, a: c.target_a, b: c.target_b };
+      return { kind: "colourway" as const, id: c.id, trialId: c.source_trial_id, title: c.name, lab, de00: deltaE00(target, lab) };
     })
     .sort((p, q) => p.de00 - q.de00)
     .slice(0, k);

@@ -4,6 +4,7 @@ import { liquorRatio } from "@/colour/arithmetic";
 import { type Dye, DyeSchema, type StockSolution, StockSolutionSchema, type YarnBase } from "@/entities/library";
 import type { Studio } from "@/entities/studio";
 import type { Layer, LayerDye, Trial } from "@/entities/trial";
+import { rowsById } from "@/lib/rows";
 import { amountsFor } from "./amounts";
 import type { CautionKey, LayerDto, LayerDyeDto, TrialDto } from "./types";
 import { trialWarnings } from "./warnings";
@@ -16,13 +17,12 @@ export interface Library {
   stocks: Map<string, StockSolution>;
 }
 
-/** The studio's dyes and stocks named by these layer dyes (one query each). */
+/** The studio's dyes and stocks named by these layer dyes (one plain query each, run together). */
 export async function loadLibrary(em: EntityManager, studio: Studio | string, dyes: LayerDye[]): Promise<Library> {
-  const dyeIds = [...new Set(dyes.map((d) => d.dyeId))];
-  const stockIds = [...new Set(dyes.map((d) => d.stockId).filter((s): s is string => !!s))];
+  const studioId = typeof studio === "string" ? studio : studio.id;
   const [ds, ss] = await Promise.all([
-    dyeIds.length ? em.find(DyeSchema, { id: { $in: dyeIds }, studio }) : [],
-    stockIds.length ? em.find(StockSolutionSchema, { id: { $in: stockIds }, studio }) : [],
+    rowsById(em, DyeSchema, "dyes", dyes.map((d) => d.dyeId), studioId),
+    rowsById(em, StockSolutionSchema, "stock_solutions", dyes.map((d) => d.stockId).filter((s): s is string => !!s), studioId),
   ]);
   return { dyes: new Map(ds.map((d) => [d.id, d])), stocks: new Map(ss.map((s) => [s.id, s])) };
 }

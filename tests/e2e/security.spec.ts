@@ -70,6 +70,11 @@ test("pages carry the security headers and a fresh script nonce that Next puts o
   const api = await request.get("/api/health");
   expect(api.headers()["x-content-type-options"]).toBe("nosniff");
   expect(api.headers()["x-frame-options"]).toBe("DENY");
+  // The API's own fixed policy, and only that one (the proxy's nonce policy is for pages).
+  const apiPolicy = cspOf(api.headers()["content-security-policy"]);
+  expect(apiPolicy.get("default-src")).toEqual(["'none'"]);
+  expect(apiPolicy.get("frame-ancestors")).toEqual(["'none'"]);
+  expect(api.headers()["content-security-policy"]).not.toContain("nonce-");
   const chunk = html.match(/\/_next\/static\/[^"]+\.js/)![0];
   expect((await request.get(chunk)).headers()["x-content-type-options"]).toBe("nosniff");
 });

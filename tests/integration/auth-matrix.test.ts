@@ -26,9 +26,9 @@ import { dosDye, makeBase, makeDye, makeStock, makeTrial } from "../support/tria
 import { doc, text } from "../support/comments";
 import { makeCard, makeColourway, makeComment, makeTimer } from "../support/records";
 
-vi.mock("next-auth", async (importOriginal) => {
-  const { fakeGetServerSession } = await import("../support/session");
-  return { ...(await importOriginal<object>()), getServerSession: fakeGetServerSession };
+vi.mock("@/lib/auth/session-token", async (importOriginal) => {
+  const { fakeSessionUserId } = await import("../support/session");
+  return { ...(await importOriginal<object>()), sessionUserIdFromCookies: fakeSessionUserId };
 });
 
 const TAG = "auth-matrix";

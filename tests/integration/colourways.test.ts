@@ -15,9 +15,9 @@ import { call } from "../support/route";
 import { makeReading } from "../support/readings";
 import { dosDye, makeBase, makeDye, makeStock, makeTrial } from "../support/trial-fixtures";
 
-vi.mock("next-auth", async (importOriginal) => {
-  const { fakeGetServerSession } = await import("../support/session");
-  return { ...(await importOriginal<object>()), getServerSession: fakeGetServerSession };
+vi.mock("@/lib/auth/session-token", async (importOriginal) => {
+  const { fakeSessionUserId } = await import("../support/session");
+  return { ...(await importOriginal<object>()), sessionUserIdFromCookies: fakeSessionUserId };
 });
 
 const TAG = "colourways";

@@ -17,9 +17,9 @@ import { type Person, type StudioFixture, makeStudio, makeUser } from "../suppor
 import { call } from "../support/route";
 import { doc, makeTrial, mention, text } from "../support/comments";
 
-vi.mock("next-auth", async (importOriginal) => {
-  const { fakeGetServerSession } = await import("../support/session");
-  return { ...(await importOriginal<object>()), getServerSession: fakeGetServerSession };
+vi.mock("@/lib/auth/session-token", async (importOriginal) => {
+  const { fakeSessionUserId } = await import("../support/session");
+  return { ...(await importOriginal<object>()), sessionUserIdFromCookies: fakeSessionUserId };
 });
 
 const TAG = "comments-activity";

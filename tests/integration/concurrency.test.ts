@@ -22,9 +22,9 @@ import { makeReading } from "../support/readings";
 import { doc, text } from "../support/comments";
 import { dosDye, makeBase, makeDye, makeTrial } from "../support/trial-fixtures";
 
-vi.mock("next-auth", async (importOriginal) => {
-  const { fakeGetServerSession } = await import("../support/session");
-  return { ...(await importOriginal<object>()), getServerSession: fakeGetServerSession };
+vi.mock("@/lib/auth/session-token", async (importOriginal) => {
+  const { fakeSessionUserId } = await import("../support/session");
+  return { ...(await importOriginal<object>()), sessionUserIdFromCookies: fakeSessionUserId };
 });
 
 const TAG = "concurrency";

@@ -26,9 +26,9 @@ const ports = vi.hoisted(() => {
   return { ...p, saved };
 });
 
-vi.mock("next-auth", async (importOriginal) => {
-  const { fakeGetServerSession } = await import("../support/session");
-  return { ...(await importOriginal<object>()), getServerSession: fakeGetServerSession };
+vi.mock("@/lib/auth/session-token", async (importOriginal) => {
+  const { fakeSessionUserId } = await import("../support/session");
+  return { ...(await importOriginal<object>()), sessionUserIdFromCookies: fakeSessionUserId };
 });
 
 import { MailOutboxSchema, PhotoSchema } from "@/entities";

@@ -28,9 +28,9 @@ import { makeCard, makeColourway, makeComment, makeTimer } from "../support/reco
 import { CURRENT_VERSION, type Hints, bodiesFor, emailAddress, hostile, hugeString, idHint, nastyString, versionHint, webUrl } from "../support/fuzz";
 import { callInRequestScope } from "../support/next-request";
 
-vi.mock("next-auth", async (importOriginal) => {
-  const { fakeGetServerSession } = await import("../support/session");
-  return { ...(await importOriginal<object>()), getServerSession: fakeGetServerSession };
+vi.mock("@/lib/auth/session-token", async (importOriginal) => {
+  const { fakeSessionUserId } = await import("../support/session");
+  return { ...(await importOriginal<object>()), sessionUserIdFromCookies: fakeSessionUserId };
 });
 // Invitations mail their link at once; a fuzz run would send hundreds. The mail path has its own tests.
 vi.mock("@/lib/mail", async (importOriginal) => ({

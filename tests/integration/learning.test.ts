@@ -18,9 +18,9 @@ import { call } from "../support/route";
 import { makeReading } from "../support/readings";
 import { dosDye, makeBase, makeDye, makeTrial } from "../support/trial-fixtures";
 
-vi.mock("next-auth", async (importOriginal) => {
-  const { fakeGetServerSession } = await import("../support/session");
-  return { ...(await importOriginal<object>()), getServerSession: fakeGetServerSession };
+vi.mock("@/lib/auth/session-token", async (importOriginal) => {
+  const { fakeSessionUserId } = await import("../support/session");
+  return { ...(await importOriginal<object>()), sessionUserIdFromCookies: fakeSessionUserId };
 });
 
 const TAG = "learning";

@@ -10,9 +10,9 @@ import { actAs } from "../support/session";
 import { type Person, makeInvitation, makeStudio, makeUser } from "../support/fixtures";
 import { call } from "../support/route";
 
-vi.mock("next-auth", async (importOriginal) => {
-  const { fakeGetServerSession } = await import("../support/session");
-  return { ...(await importOriginal<object>()), getServerSession: fakeGetServerSession };
+vi.mock("@/lib/auth/session-token", async (importOriginal) => {
+  const { fakeSessionUserId } = await import("../support/session");
+  return { ...(await importOriginal<object>()), sessionUserIdFromCookies: fakeSessionUserId };
 });
 
 const TAG = "perm-user";

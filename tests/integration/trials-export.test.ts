@@ -12,9 +12,9 @@ import { type Person, type StudioFixture, makeStudio, makeUser } from "../suppor
 import { call } from "../support/route";
 import { makeBase, makeDye, makeStock } from "../support/trial-fixtures";
 
-vi.mock("next-auth", async (importOriginal) => {
-  const { fakeGetServerSession } = await import("../support/session");
-  return { ...(await importOriginal<object>()), getServerSession: fakeGetServerSession };
+vi.mock("@/lib/auth/session-token", async (importOriginal) => {
+  const { fakeSessionUserId } = await import("../support/session");
+  return { ...(await importOriginal<object>()), sessionUserIdFromCookies: fakeSessionUserId };
 });
 
 const TAG = "trials-export";

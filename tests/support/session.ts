@@ -1,6 +1,6 @@
-// The session boundary, faked for integration tests. A test file mocks next-auth with
-//   vi.mock("next-auth", async (orig) => ({ ...(await orig<object>()), getServerSession: fakeGetServerSession }));
-// (importing fakeGetServerSession inside the factory) and then picks who is signed in with
+// The session boundary, faked for integration tests. A test file mocks the session cookie reader with
+//   vi.mock("@/lib/auth/session-token", async (orig) => ({ ...(await orig<object>()), sessionUserIdFromCookies: fakeSessionUserId }));
+// (importing fakeSessionUserId inside the factory) and then picks who is signed in with
 // actAs(user) or actAs(null). Everything behind the session — database, permissions,
 // handlers — stays real. Requests that run at the same time as different people use
 // runAs(user, fn): the person travels with the async call chain, not in a global.
@@ -30,10 +30,9 @@ export function runAs<T>(user: FakeSessionUser | null, fn: () => Promise<T>): Pr
   return scope.run(strip(user), fn);
 }
 
-/** Stands in for next-auth's getServerSession: the shape next-auth returns for a JWT session. */
-export async function fakeGetServerSession() {
+/** Stands in for reading the session cookie (lib/auth/session-token.ts): the id of who is signed in. */
+export async function fakeSessionUserId(): Promise<string | null> {
   const scoped = scope.getStore();
   const u = scoped !== undefined ? scoped : state.__undertoneFakeSession;
-  if (!u) return null;
-  return { user: { id: u.id, email: u.email, name: u.name }, expires: new Date(Date.now() + 86_400_000).toISOString() };
+  return u ? u.id : null;
 }

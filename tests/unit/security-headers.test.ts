@@ -3,7 +3,7 @@
 // the request), and next-auth's secure cookies when the app is served over https.
 import { afterEach, describe, expect, it, vi } from "vitest";
 import { NextRequest } from "next/server";
-import nextConfig, { securityHeaders } from "../../next.config.mjs";
+import nextConfig, { apiContentSecurityPolicy, securityHeaders } from "../../next.config.mjs";
 import { proxy } from "@/proxy";
 import { contentSecurityPolicy } from "@/lib/security/csp";
 
@@ -17,15 +17,35 @@ const directives = (csp: string) => new Map(csp.split("; ").map((d) => [d.split(
 describe("fixed headers (next.config)", () => {
   it("apply to every path with the agreed values", async () => {
     const rules = await nextConfig.headers!();
-    expect(rules).toEqual([{ source: "/:path*", headers: securityHeaders }]);
+    expect(rules).toEqual([
+      { source: "/:path*", headers: securityHeaders },
+      { source: "/api/:path*", headers: [{ key: "Content-Security-Policy", value: apiContentSecurityPolicy }] },
+    ]);
     const h = Object.fromEntries(securityHeaders.map((x) => [x.key, x.value]));
     expect(h["X-Frame-Options"]).toBe("DENY");
     expect(h["X-Content-Type-Options"]).toBe("nosniff");
     expect(h["Referrer-Policy"]).toBe("strict-origin-when-cross-origin");
     expect(h["Permissions-Policy"].split(", ")).toEqual(expect.arrayContaining(["camera=(self)", "microphone=()", "geolocation=()"]));
-    // The policy itself is per request (nonce), so it must not also come from here: two
+    // The pages' policy is per request (nonce), so it must not also come from here: two
     // policies would both apply and the fixed one would block Next's scripts.
     expect(Object.keys(h)).not.toContain("Content-Security-Policy");
+  });
+
+  it("give the API a fixed policy that runs no script and cannot be framed, and keep the API out of the proxy", async () => {
+    const d = directives(apiContentSecurityPolicy);
+    expect(d.get("default-src")).toEqual(["'none'"]);
+    expect(d.has("script-src")).toBe(false); // falls back to default-src 'none'
+    expect(d.get("frame-ancestors")).toEqual(["'none'"]);
+    expect(d.get("form-action")).toEqual(["'self'"]);
+    expect(d.get("base-uri")).toEqual(["'none'"]);
+    // The proxy (nonce policy, sign-in redirect) runs for pages, not for /api.
+    const { config } = await import("@/proxy");
+    const matcher = new RegExp(`^${config.matcher[0]}$`);
+    expect(matcher.test("/api/studios/x/trials")).toBe(false);
+    expect(matcher.test("/api/auth/csrf")).toBe(false);
+    expect(matcher.test("/s/x/trials")).toBe(true);
+    expect(matcher.test("/signin")).toBe(true);
+    expect(matcher.test("/apiary")).toBe(true);
     expect(nextConfig.poweredByHeader).toBe(false);
   });
 });
