@@ -268,6 +268,7 @@ async function invitationFor(p: Person): Promise<string> {
 const EXPECTED: Record<string, Entry> = {
   /* ----- outside any studio ----- */
   "GET /api/health": { allow: "public", ok: [200], req: () => ({ params: {} }) },
+  "GET /api/health/live": { allow: "public", ok: [200], req: () => ({ params: {} }) },
   "GET /api/auth/[...nextauth]": {
     allow: "public",
     ok: [200],
