@@ -98,6 +98,36 @@ export function withStudio<P extends { studioId: string }>(
   };
 }
 
+/**
+ * Larger than any body the app takes: the longest are notes and comments, whose documents are
+ * capped at about 100 000 characters of JSON (under 400 kB even written in emoji). Photos go to
+ * the object store directly, never through here.
+ */
+export const MAX_BODY_BYTES = 1_000_000;
+const tooLarge = (max: number) =>
+  new HttpError(413, `The request is too large (over ${max >= 1_000_000 ? `${max / 1_000_000} MB` : `${max / 1000} kB`}). Shorten the text and try again.`);
+
+/** The body as text, refused (413) once it passes `max` bytes: a declared length is believed, a stream is counted. */
+export async function readBodyText(req: Request, max = MAX_BODY_BYTES): Promise<string> {
+  if (Number(req.headers.get("content-length")) > max) throw tooLarge(max);
+  if (!req.body) return "";
+  const reader = req.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let bytes = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    bytes += value.byteLength;
+    if (bytes > max) {
+      // Not awaited: cancelling one branch of a cloned body settles only when the other is cancelled too.
+      void reader.cancel().catch(() => undefined);
+      throw tooLarge(max);
+    }
+    chunks.push(value);
+  }
+  return new TextDecoder().decode(Buffer.concat(chunks));
+}
+
 /** Deeper than any body the app takes (an editor document is the deepest, about a dozen levels). */
 const MAX_BODY_DEPTH = 64;
 
@@ -127,10 +157,10 @@ function storable(s: string): boolean {
  * Reads a JSON body; an empty or malformed body becomes a clear 400. So does one nested past
  * MAX_BODY_DEPTH: parsing it is fine, but every later step that walks it recursively (zod, JSON
  * writing, the database driver) would run out of stack. Text the database cannot hold is a 422
- * here, before any handler could try to write it.
+ * here, before any handler could try to write it. A body over MAX_BODY_BYTES is a 413, unread.
  */
 export async function readJson(req: Request): Promise<unknown> {
-  const text = await req.text();
+  const text = await readBodyText(req);
   if (!text.trim()) return {};
   if (nesting(text) > MAX_BODY_DEPTH) throw new HttpError(400, "The request body is nested too deeply.");
   return JSON.parse(text, (key, value) => {

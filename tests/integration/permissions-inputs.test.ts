@@ -109,6 +109,18 @@ describe("malformed JSON → 400", () => {
   });
 });
 
+describe("a body over 1 MB → 413, nothing stored", () => {
+  it("a new studio whose name comes with 1.2 MB of padding is refused and not made", async () => {
+    actAs(owner);
+    const name = `Padded ${Date.now()}`;
+    const res = await call(studiosRoute.POST, "POST", {}, { raw: JSON.stringify({ name, padding: "x".repeat(1_200_000) }) });
+    expect(res.status).toBe(413);
+    expect(res.json.error).toMatch(/too large \(over 1 MB\)/);
+    const em = (await getOrm()).em.fork();
+    expect(await em.getConnection().execute("select 1 from studios where name = ?", [name])).toHaveLength(0);
+  });
+});
+
 describe("ids that are not ids, or not this studio's → 404", () => {
   it.each([
     ["GET", studioRoute.GET, () => ({ studioId: "not-a-uuid" })],

@@ -191,6 +191,13 @@ describe("the sign-in route", () => {
     await sql("delete from rate_limits where key = ?", [`signin-email:${person.email}`]);
   });
 
+  it("a sign-in form over 64 kB is refused with 413 before anything is counted or checked", async () => {
+    const res = await send("POST", ["callback", "password"], { email: person.email, password: "x".repeat(70_000), csrfToken: await csrf(), json: "true" });
+    expect(res.status).toBe(413);
+    expect(res.json.error).toMatch(/too large \(over 64 kB\)/);
+    expect(await sql("select 1 from rate_limits where key = ?", [`signin-email:${person.email}`])).toHaveLength(0);
+  });
+
   it("a successful sign-in gives the attempt back to the address and clears the person's counters", async () => {
     for (let i = 0; i < 3; i++) expect((await password(person.email, "wrong")).status).toBe(401);
     const ok = await password(person.email, "correct horse battery");

@@ -1,7 +1,7 @@
 // Request bodies no form would send: nested past any document, text the database cannot hold.
 // Each is refused with a status a person can act on, never by the stack running out.
 import { describe, expect, it } from "vitest";
-import { readJson } from "@/lib/auth/with-studio";
+import { MAX_BODY_BYTES, readJson } from "@/lib/auth/with-studio";
 import { HttpError } from "@/lib/errors";
 import { commentDoc } from "@/lib/schemas/comment";
 import { baseListQuery, dyeListQuery, stockListQuery } from "@/lib/schemas/library";
@@ -38,6 +38,27 @@ describe("readJson", () => {
     expect(await statusOf(`{"a":${"[".repeat(50_000)}${"]".repeat(50_000)}}`)).toBe(400);
     // Brackets inside strings do not count.
     expect(await statusOf(JSON.stringify({ note: "[".repeat(500) }))).toBe("ok");
+  });
+
+  it("refuses a body over 1 MB with a 413 (declared or streamed), and reads one just under it", async () => {
+    const text = (n: number) => JSON.stringify({ notes: "x".repeat(n - 12) }); // {"notes":"…"} is 12 bytes more
+    expect(await statusOf(text(MAX_BODY_BYTES))).toBe("ok");
+    expect(await statusOf(text(MAX_BODY_BYTES + 1))).toBe(413);
+    // No length given: counted while streaming, and the stream is left after the limit.
+    let pulled = 0;
+    const chunk = new TextEncoder().encode("[" + "1,".repeat(32_767));
+    const endless = new ReadableStream<Uint8Array>({
+      pull(c) {
+        pulled++;
+        c.enqueue(chunk);
+      },
+    });
+    const req = new Request("http://127.0.0.1/x", { method: "POST", body: endless, duplex: "half" } as RequestInit);
+    await expect(readJson(req)).rejects.toMatchObject({ status: 413, message: expect.stringContaining("over 1 MB") });
+    expect(pulled).toBeLessThan(Math.ceil(MAX_BODY_BYTES / chunk.byteLength) + 3);
+    // A length header that overstates is believed: refused before a byte is read.
+    const lying = new Request("http://127.0.0.1/x", { method: "POST", body: "{}", headers: { "content-length": "5000000" } });
+    await expect(readJson(lying)).rejects.toMatchObject({ status: 413 });
   });
 
   it("refuses text PostgreSQL cannot store with a 422: NUL, and half a surrogate pair", async () => {

@@ -1,5 +1,6 @@
 // GET /api/unsubscribe?token= – asks to confirm turning notification mail off; POST – turns it off (no sign-in: the token is signed)
 import { escapeHtml } from "@/lib/auth/sign-in-mail";
+import { readBodyText } from "@/lib/auth/with-studio";
 import { getEm } from "@/lib/db";
 import { unsubscribe, verifyUnsubscribeToken } from "@/lib/notifications";
 
@@ -29,7 +30,9 @@ export async function POST(req: Request): Promise<Response> {
   const url = new URL(req.url);
   let token = url.searchParams.get("token") ?? "";
   if (!token && (req.headers.get("content-type") ?? "").includes("application/x-www-form-urlencoded")) {
-    token = String(new URLSearchParams(await req.text()).get("token") ?? "");
+    // A token is under 200 characters; a form far larger than that is not one of ours.
+    const form = await readBodyText(req, 10_000).catch(() => "");
+    token = String(new URLSearchParams(form).get("token") ?? "");
   }
   try {
     const result = await unsubscribe(await getEm(), token);
