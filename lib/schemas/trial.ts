@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { notesDoc } from "./notes";
 
 // Trials and their layers: one zod module shared by the forms (zodResolver) and the route handlers.
 // Messages say what to type, in the words a dyer uses at the dye table.
@@ -48,20 +49,8 @@ const tags = z
     { message: "Tags are a list of short words." },
   )
   .max(20, "Use at most 20 tags.");
-/** Length of a value as JSON; Infinity when it cannot be written (nested past the stack's depth). */
-function jsonLength(v: unknown): number {
-  try {
-    return JSON.stringify(v).length;
-  } catch {
-    return Infinity;
-  }
-}
-
-/** Rich notes: the editor's JSON document (`{ type: "doc", content: [...] }`). */
-const notes = z
-  .looseObject({ type: z.literal("doc", { message: "Notes must come from the notes editor." }) }, { message: "Notes must come from the notes editor." })
-  .refine((d) => jsonLength(d) <= 100_000, "The notes are too long: keep them under about 50 pages.")
-  .nullable();
+/** Rich notes: the notes editor's JSON document, checked against what that editor makes (notes.ts). */
+const notes = notesDoc.nullable();
 const version = z.number({ message: "Reload the trial: the saved version is missing." }).int("Reload the trial: the saved version is not valid.");
 
 export const trialInput = z.object({

@@ -89,7 +89,7 @@ describe("schemas given values nested past the stack's depth", () => {
 });
 
 describe("notesText", () => {
-  it("skips what is not a node (the notes schema checks only the outer document)", () => {
+  it("skips what is not a node (notes stored before the schema checked every node)", () => {
     const doc = { type: "doc", content: [null, 5, "loose", { type: "paragraph", content: [null, { type: "text", text: "Rinse warm." }] }] };
     expect(notesText(doc)).toBe("Rinse warm.");
   });
