@@ -169,7 +169,9 @@ const dayHint = () =>
   );
 
 /** An editor document: mostly of the allowed nodes, sometimes with nodes, marks and links that are not. */
-function docHint(strict = false): fc.Arbitrary<unknown> {
+/** Editor documents: a comment's (mentions, swatches) or a trial's notes (neither; lib/schemas/notes.ts). */
+function docHint(strict = false, kind: "comment" | "notes" = "comment"): fc.Arbitrary<unknown> {
+  const chips = kind === "comment" ? 1 : 0;
   const bad = strict ? 0 : 1;
   const textNode = fc.record({
     type: fc.constant("text"),
@@ -192,8 +194,8 @@ function docHint(strict = false): fc.Arbitrary<unknown> {
   const swatch = fc.record({ type: fc.constant("swatch"), attrs: fc.record({ hex: strict ? fc.stringMatching(/^#[0-9a-f]{6}$/) : fc.oneof(fc.stringMatching(/^#[0-9a-f]{6}$/), nastyString) }) });
   const inline = fc.oneof(
     { weight: 6, arbitrary: textNode },
-    { weight: 1, arbitrary: mention },
-    { weight: 1, arbitrary: swatch },
+    { weight: chips, arbitrary: mention },
+    { weight: chips, arbitrary: swatch },
     { weight: 1, arbitrary: fc.constant({ type: "hardBreak" }) },
     { weight: bad, arbitrary: hostile },
   );
@@ -242,7 +244,7 @@ const validTrial = () =>
       baseId: fc.constantFrom(f.baseId, null),
       status: fc.constantFrom("planned", "in-progress", "done"),
       tags: fc.array(fc.stringMatching(/^[a-z]{1,12}$/), { maxLength: 4 }),
-      notes: fc.oneof(fc.constant(null), docHint(true)),
+      notes: fc.oneof(fc.constant(null), docHint(true, "notes")),
     },
     { requiredKeys: ["title", "fibreWeightG"] },
   );
@@ -341,11 +343,11 @@ const ROUTES: FuzzRoute[] = [
     version: () => versionIn("stock_solutions", f.patchStockId),
   }),
   jsonRoute("POST /api/studios/[studioId]/trials", () => import("@/app/api/studios/[studioId]/trials/route"), S, trialInput, {
-    hints: () => ({ baseId: ids.base(), notes: docHint() }),
+    hints: () => ({ baseId: ids.base(), notes: docHint(false, "notes") }),
     valid: validTrial,
   }),
   jsonRoute("PATCH /api/studios/[studioId]/trials/[trialId]", () => import("@/app/api/studios/[studioId]/trials/[trialId]/route"), () => ({ ...S(), trialId: f.patchTrialId }), trialPatch, {
-    hints: () => ({ version: versionHint, baseId: ids.base(), notes: docHint() }),
+    hints: () => ({ version: versionHint, baseId: ids.base(), notes: docHint(false, "notes") }),
     valid: () => withVersion(validTrial()),
     version: () => versionIn("trials", f.patchTrialId),
   }),
