@@ -1,5 +1,7 @@
+import { OUNCE_G } from "@/colour/measures";
 import { labToHex } from "@/colour/spaces";
-import { formatMl } from "@/colour/units-format";
+import { formatAmount } from "@/colour/units-format";
+import { type TempUnit, type UnitSystem, temperature } from "@/components/trial/units";
 import type { RecipeCard } from "@/lib/learning/recipe";
 import { labText } from "./colour-bits";
 
@@ -14,9 +16,22 @@ const CAUTIONS = [
   ["Disposal", "let baths cool; a clear spent bath usually goes to the drain with plenty of water, unless your local rules or a septic system say otherwise."],
 ] as const;
 
-/** The colourway's recipe scaled to one lot, laid out to print on one A4 page. */
-export function RecipeCardView({ card, studioName }: { card: RecipeCard; studioName: string }) {
+/** The reader's units: volumes in ml and l or in US kitchen measures (with the ml), °C or °F. */
+export interface RecipeUnits {
+  system: UnitSystem;
+  temperature: TempUnit;
+}
+
+/**
+ * The colourway's recipe scaled to one lot, laid out to print on one A4 page. Dye powder and citric
+ * acid stay in grams in either system (dye is weighed on a gram scale); volumes of stock, vinegar
+ * and water follow the reader's units.
+ */
+export function RecipeCardView({ card, studioName, units = { system: "metric", temperature: "C" } }: { card: RecipeCard; studioName: string; units?: RecipeUnits }) {
   const target = card.colourway.target;
+  const us = units.system === "us";
+  const vol = (ml: number) => formatAmount(ml, units.system);
+  const fibre = (g: number) => (us ? `${g} g (${(g / OUNCE_G).toFixed(1)} oz)` : `${g} g`);
   return (
     <article className="recipe-card mx-auto max-w-[190mm] bg-white p-4 text-ink print:max-w-none print:p-0" data-testid="recipe-card">
       <header className="flex items-start gap-4 border-b border-ink pb-3">
@@ -25,7 +40,7 @@ export function RecipeCardView({ card, studioName }: { card: RecipeCard; studioN
           <p className="text-xs uppercase tracking-wide">{studioName} · recipe card</p>
           <h1 className="text-2xl">{card.colourway.name}</h1>
           <p className="tabular text-sm">
-            For <strong>{card.toFibreG} g</strong> of dry fibre{card.baseName ? ` (${card.baseName})` : ""} · scaled ×{card.factor.toFixed(2)} from {card.fromFibreG} g
+            For <strong>{fibre(card.toFibreG)}</strong> of dry fibre{card.baseName ? ` (${card.baseName})` : ""} · scaled ×{card.factor.toFixed(2)} from {card.fromFibreG} g
           </p>
           <p className="tabular font-mono text-xs text-ink-soft">Target {labText(target)}</p>
         </div>
@@ -55,15 +70,19 @@ export function RecipeCardView({ card, studioName }: { card: RecipeCard; studioN
                   </td>
                   <td>{d.dosPct.toFixed(3)} %</td>
                   <td>{grams(d.grams)}</td>
-                  <td>{d.stockMl != null && d.stockPct ? `${formatMl(d.stockMl)} of ${d.stockPct} %` : "—"}</td>
+                  <td>{d.stockMl != null && d.stockPct ? `${vol(d.stockMl)} of ${d.stockPct} %` : "—"}</td>
                 </tr>
               ))}
             </tbody>
           </table>
           <p className="tabular mt-1 text-sm">
-            {l.acid.kind !== "none" && l.acid.amount != null ? `Acid: ${l.acid.amount.toFixed(l.acid.unit === "g" ? 1 : 0)} ${l.acid.unit} ${l.acid.kind}` : "No acid"}
-            {l.waterL != null ? ` · water ${l.waterL.toFixed(1)} l` : ""}
-            {l.temperatureC != null ? ` · ${l.temperatureC} °C` : ""}
+            {l.acid.kind !== "none" && l.acid.amount != null
+              ? l.acid.unit === "ml"
+                ? `Acid: ${vol(l.acid.amount)} ${l.acid.kind}`
+                : `Acid: ${l.acid.amount.toFixed(1)} ${l.acid.unit} ${l.acid.kind}`
+              : "No acid"}
+            {l.waterL != null ? ` · water ${us ? vol(l.waterL * 1000) : `${l.waterL.toFixed(1)} l`}` : ""}
+            {l.temperatureC != null ? ` · ${temperature(l.temperatureC, units.temperature)}` : ""}
             {l.minutes != null ? ` for ${l.minutes} min` : ""}
             {l.setting.method !== "none" ? ` · set by ${l.setting.method}${l.setting.minutes ? ` ${l.setting.minutes} min` : ""}` : ""}
           </p>

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { RecipeCardView } from "@/components/learning/recipe-card";
 import { PrintButton } from "@/components/ui/print-button";
-import { StudioSchema } from "@/entities";
+import { StudioSchema, UserSchema } from "@/entities";
 import { isUuid } from "@/lib/auth/with-studio";
 import { getEm } from "@/lib/db";
 import { getColourway } from "@/lib/learning/colourways";
@@ -26,7 +26,10 @@ export default async function RecipePage({
   const parsed = recipeQuery.safeParse({ weight: (await searchParams).weight ?? "100" });
   const weight = parsed.success ? parsed.data.weight : 100;
   const em = await getEm();
-  const studio = await em.findOneOrFail(StudioSchema, { id: studioId });
+  const [studio, reader] = await Promise.all([
+    em.findOneOrFail(StudioSchema, { id: studioId }),
+    em.findOneOrFail(UserSchema, { id: m.user.id }, { fields: ["unitSystem", "temperatureUnit"] }),
+  ]);
   const colourway = await getColourway(em, studio, colourwayId).catch(() => notFound());
   return (
     <>
@@ -38,7 +41,11 @@ export default async function RecipePage({
         <PrintButton label="Print recipe card" />
         {!parsed.success && <p className="text-caution">That weight was not usable; shown for 100 g.</p>}
       </div>
-      <RecipeCardView card={scaleColourwayRecipe(colourway, weight)} studioName={m.studio.name} />
+      <RecipeCardView
+        card={scaleColourwayRecipe(colourway, weight)}
+        studioName={m.studio.name}
+        units={{ system: reader.unitSystem, temperature: reader.temperatureUnit }}
+      />
     </>
   );
 }
