@@ -185,6 +185,20 @@ test("predict an over-dye, compare with the dyed skein, turn it into a colourway
   const pages = (pdf.toString("latin1").match(/\/Type\s*\/Page[^s]/g) ?? []).length;
   expect(pages, "the recipe card prints on one page").toBe(1);
   await page.emulateMedia({ media: "screen" });
+
+  // ---- the same card for a dyer who measures in US kitchen units and °F
+  const units = await (await page.request.get("/api/account")).json();
+  expect((await page.request.patch("/api/account", { data: { unitSystem: "us", temperatureUnit: "F" } })).ok()).toBe(true);
+  try {
+    await page.reload();
+    await expect(card).toContainText("800 g (28.2 oz)"); // 800 / 28.349523125 g per oz (NIST)
+    await expect(card.getByRole("row", { name: /Rosehip/ })).toContainText("12.0 g"); // powder stays in grams
+    await expect(card).toContainText(/°F/);
+    await expect(card).not.toContainText("°C");
+    await shot(page, info, "learning-recipe-us");
+  } finally {
+    await page.request.patch("/api/account", { data: { unitSystem: units.unitSystem, temperatureUnit: units.temperatureUnit } });
+  }
 });
 
 test("the studio's dye profiles and the search by colour", async ({ page }, info) => {
