@@ -2,10 +2,11 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { type ActivityEvent, ActivityEventSchema, FollowSchema, NotificationSchema } from "@/entities/comment";
-import { MembershipSchema, type Studio } from "@/entities/studio";
+import { MembershipSchema, type Role, type Studio } from "@/entities/studio";
 import { type User, UserSchema } from "@/entities/user";
 import { badRequest } from "@/lib/errors";
 import type { ActivityKind, ActivityQuery } from "@/lib/schemas/activity";
+import type { LayerMethod } from "@/lib/schemas/trial";
 
 // The studio's activity feed. Features call recordActivity inside the unit of work that makes
 // the thing (before their flush), so the event and the thing are stored together or not at all.
@@ -24,12 +25,40 @@ export interface ActivityInput {
   subjectId?: string | null;
   /**
    * Give followers of the trial or colourway an in-app notice (no mail). On by default except for
-   * new trials and comments (comments notify on their own, with mail).
+   * new and copied trials (nobody follows them yet), comments (they notify on their own, with
+   * mail), people joining, and predictions (a look ahead that changes nothing on the trial).
    */
   notifyFollowers?: boolean;
 }
 
-const QUIET_KINDS: ActivityKind[] = ["trial.created", "comment.added", "member.joined"];
+// Words for summaries, shared by the features so the feed reads the same everywhere.
+
+/** A title in the feed's quotation marks: “Sea glass”. */
+export const quoted = (title: string) => `“${title}”`;
+
+const METHOD_WORDS: Record<LayerMethod, string | null> = {
+  immersion: "immersion",
+  kettle: "kettle",
+  dip: "dip",
+  "hand-paint": "hand-paint",
+  speckle: "speckle",
+  dry: "dry application",
+  other: null,
+};
+
+/** `layer 2 (dip)` from a 0-based position; "other" methods go unnamed. */
+export function layerWords(position: number, method: LayerMethod): string {
+  const m = METHOD_WORDS[method];
+  return `layer ${position + 1}${m ? ` (${m})` : ""}`;
+}
+
+/** `a dyer`, `an owner`. */
+export const roleWords = (role: Role) => ({ owner: "an owner", dyer: "a dyer", guest: "a guest" })[role];
+
+/** `3 colours`, `a colour`. */
+export const countWords = (n: number, one: string, many: string) => (n === 1 ? `a ${one}` : `${n} ${many}`);
+
+const QUIET_KINDS: ActivityKind[] = ["trial.created", "trial.copied", "comment.added", "member.joined", "prediction.made"];
 const MAX_SUMMARY = 300;
 
 const idOf = (v: { id: string } | string) => (typeof v === "string" ? v : v.id);

@@ -1,8 +1,9 @@
 import "server-only";
-import { createHash, randomBytes } from "node:crypto";
+import { createHash, randomBytes, randomUUID } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { type Invitation, type Membership, type Role, type Studio, InvitationSchema, MembershipSchema, StudioSchema } from "@/entities/studio";
 import { type User, UserSchema } from "@/entities/user";
+import { recordActivity, roleWords } from "@/lib/activity";
 import { env } from "@/lib/env";
 import { conflict, forbidden, HttpError, notFound } from "@/lib/errors";
 import { enqueueMail } from "@/lib/outbox";
@@ -120,7 +121,16 @@ export async function acceptInvitation(em: EntityManager, token: string, user: S
     }
     const studio = inv.studio.getEntity();
     const already = await tx.findOne(MembershipSchema, { studio, user: user.id });
-    if (!already) tx.create(MembershipSchema, { studio, user: user.id, role: inv.role });
+    if (!already) {
+      const m = tx.create(MembershipSchema, { id: randomUUID(), studio, user: user.id, role: inv.role });
+      await recordActivity(tx, {
+        studio,
+        actor: user.id,
+        kind: "member.joined",
+        summary: `joined the studio as ${roleWords(inv.role)}, invited by ${inv.invitedBy.getEntity().name}`,
+        subjectId: m.id,
+      });
+    }
     inv.acceptedAt = new Date();
     const u = await tx.findOneOrFail(UserSchema, { id: user.id });
     u.emailVerified ??= new Date();

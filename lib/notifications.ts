@@ -17,6 +17,8 @@ export interface NotificationDto {
   actor: { id: string; name: string } | null;
   trialId: string | null;
   commentId: string | null;
+  /** The colourway a followed-activity notice is about (a lot, a colourway marked repeatable). */
+  colourwayId: string | null;
   createdAt: string;
   readAt: string | null;
 }
@@ -30,6 +32,7 @@ function notificationDto(n: Notification): NotificationDto {
     actor: a ? { id: a.id, name: a.name } : null,
     trialId: n.trial?.id ?? null,
     commentId: n.comment?.id ?? null,
+    colourwayId: n.activity?.isInitialized() ? (n.activity.getEntity().colourwayId ?? null) : null,
     createdAt: n.createdAt.toISOString(),
     readAt: n.readAt?.toISOString() ?? null,
   };
@@ -49,7 +52,7 @@ export async function listNotifications(
   const rows = await em.find(
     NotificationSchema,
     { studio, user: userId, ...(q.unread === "1" ? { readAt: null } : {}), ...afterCursor(q.cursor) },
-    { orderBy: [{ createdAt: "desc" }, { id: "desc" }], limit: q.limit + 1, populate: ["actor"] },
+    { orderBy: [{ createdAt: "desc" }, { id: "desc" }], limit: q.limit + 1, populate: ["actor", "activity"] },
   );
   const items = rows.slice(0, q.limit);
   const last = items[items.length - 1];

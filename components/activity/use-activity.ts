@@ -25,6 +25,7 @@ export interface NotificationDto {
   actor: { id: string; name: string } | null;
   trialId: string | null;
   commentId: string | null;
+  colourwayId: string | null;
   createdAt: string;
   readAt: string | null;
 }
@@ -92,8 +93,21 @@ export function useMarkRead(studioId: string) {
   });
 }
 
-/** Where an event or notification leads: its trial, at the comment when there is one. */
-export function hrefFor(studioId: string, x: { trialId: string | null; commentId: string | null }): string | null {
+/**
+ * Where an event or notification leads: a colourway's page for colourway and lot events, the
+ * photo for photos and readings, the members for someone joining; otherwise the trial, at the
+ * comment or layer when there is one.
+ */
+export function hrefFor(
+  studioId: string,
+  x: { kind?: string; trialId: string | null; commentId: string | null; layerId?: string | null; colourwayId?: string | null; subjectId?: string | null },
+): string | null {
+  const s = `/s/${studioId}`;
+  if (x.colourwayId) return `${s}/colourways/${x.colourwayId}`;
+  if (x.kind === "member.joined") return `${s}/members`;
   if (!x.trialId) return null;
-  return `/s/${studioId}/trials/${x.trialId}${x.commentId ? `#comment-${x.commentId}` : ""}`;
+  const trial = `${s}/trials/${x.trialId}`;
+  if ((x.kind === "photo.added" || x.kind === "reading.added") && x.subjectId) return `${trial}/photos/${x.subjectId}`;
+  if (x.commentId) return `${trial}#comment-${x.commentId}`;
+  return x.layerId ? `${trial}#layer-${x.layerId}` : trial;
 }

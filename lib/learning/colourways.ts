@@ -1,7 +1,9 @@
 import "server-only";
+import { randomUUID } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { judgeLot, type Lab } from "@/colour";
 import { ColourwaySchema, DyeLotSchema, ReadingSchema, type Colourway, type DyeLot, type Role, type Studio } from "@/entities";
+import { countWords, quoted, recordActivity } from "@/lib/activity";
 import { can } from "@/lib/auth/permissions";
 import { badRequest, conflict, forbidden, notFound } from "@/lib/errors";
 import type { ColourwayInput, ColourwayPatch, LotInput } from "@/lib/schemas/colourway";
@@ -108,6 +110,7 @@ export async function createColourway(em: EntityManager, studio: Studio, user: S
   if (!reading) throw badRequest("Choose a reading of this trial as the target colour.", { readingId: "Not a reading of this trial." });
   const snapshot = await getTrial(em, studio, trial.id);
   const c = em.create(ColourwaySchema, {
+    id: randomUUID(),
     studio,
     name: input.name,
     description: input.description,
@@ -119,6 +122,14 @@ export async function createColourway(em: EntityManager, studio: Studio, user: S
     sourceReading: reading,
     recipe: { fibreWeightG: snapshot.fibreWeightG, base: snapshot.base, layers: snapshot.layers },
     proposedBy: user.id,
+  });
+  await recordActivity(em, {
+    studio,
+    actor: user.id,
+    kind: "colourway.created",
+    summary: `proposed the colourway ${quoted(c.name)} from ${quoted(trial.title)}`,
+    trialId: trial.id,
+    colourwayId: c.id,
   });
   await em.flush();
   return dto(em, studio, c);
@@ -137,6 +148,7 @@ export async function updateColourway(
   if (c.version !== patch.version) {
     throw conflict("Someone else changed this colourway while you were editing. Reload to see their changes, then apply yours again.");
   }
+  let becameRepeatable: number | null = null;
   if (patch.status && patch.status !== c.status) {
     if (patch.status !== "candidate" && !can(role, "colourway.approve")) {
       throw forbidden("Only a studio owner can mark a colourway repeatable or retire it.");
@@ -150,11 +162,23 @@ export async function updateColourway(
       }
       c.approvedBy = em.getReference("User" as never, user.id as never) as never;
       c.approvedAt = new Date();
+      becameRepeatable = passing;
     }
     c.status = patch.status;
   }
   if (patch.name !== undefined) c.name = patch.name;
   if (patch.description !== undefined) c.description = patch.description;
+  if (becameRepeatable !== null) {
+    // Stored by the same flush, which checks the version: a refused save records nothing.
+    await recordActivity(em, {
+      studio,
+      actor: user.id,
+      kind: "colourway.repeatable",
+      summary: `marked ${quoted(c.name)} repeatable, after ${countWords(becameRepeatable, "passing lot", "passing lots")}`,
+      trialId: c.sourceTrial.id,
+      colourwayId: c.id,
+    });
+  }
   await em.flush();
   return dto(em, studio, c);
 }
@@ -168,7 +192,8 @@ export async function addLot(em: EntityManager, studio: Studio, user: SessionUse
   const judged = reading
     ? judgeLot({ L: c.targetL, a: c.targetA, b: c.targetB }, labOf(reading), { metric: "cmc21", max: studio.lotTolerance })
     : null;
-  em.create(DyeLotSchema, {
+  const lot = em.create(DyeLotSchema, {
+    id: randomUUID(),
     studio,
     colourway: c,
     trial,
@@ -184,6 +209,16 @@ export async function addLot(em: EntityManager, studio: Studio, user: SessionUse
     tolerance: studio.lotTolerance,
     notes: input.notes,
     createdBy: user.id,
+  });
+  const verdict = !judged ? "not measured yet" : judged.pass ? "passed" : `failed${judged.misses.length ? ` (${judged.misses.join(", ")})` : ""}`;
+  await recordActivity(em, {
+    studio,
+    actor: user.id,
+    kind: "lot.added",
+    summary: `logged lot ${lot.code} of ${quoted(c.name)} — ${verdict}`,
+    trialId: trial.id,
+    colourwayId: c.id,
+    subjectId: lot.id,
   });
   await em.flush();
   return dto(em, studio, c);

@@ -1,4 +1,5 @@
 import "server-only";
+import { randomUUID } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { compareVerdict, predictLayer, profileMap, toModelLayer, type Lab, type LayerBase, type Prediction } from "@/colour";
 import {
@@ -12,7 +13,9 @@ import {
   type Reading,
   type Studio,
 } from "@/entities";
-import { badRequest, HttpError, notFound } from "@/lib/errors";
+import { layerWords, quoted, recordActivity } from "@/lib/activity";
+import { isUuid } from "@/lib/auth/with-studio";
+import { badRequest, conflict, HttpError, notFound } from "@/lib/errors";
 import type { SessionUser } from "@/lib/auth/session";
 import { fibreClassOf } from "./fibre-class";
 
@@ -56,7 +59,9 @@ async function trialReadings(em: EntityManager, studio: Studio, trialId: string)
 /**
  * Predicts a layer over the latest measured colour before it (the trial's base reading or the
  * reading of an earlier layer), chaining predictions through unmeasured layers in between, and
- * records what was predicted with the profile versions used.
+ * records what was predicted with the profile versions used. With `asked`, a person asked for it
+ * (the prediction route) and the studio's feed shows it; the ones the server records on its own
+ * when a layer is saved or measured stay out of the feed.
  */
 export async function recordPrediction(
   em: EntityManager,
@@ -64,6 +69,7 @@ export async function recordPrediction(
   user: SessionUser,
   trialId: string,
   layerId: string,
+  options: { asked?: boolean } = {},
 ): Promise<LayerPredictionDto> {
   const trial = await em.findOne(TrialSchema, { id: trialId, studio }, { populate: ["base"] });
   if (!trial) throw notFound("This trial");
@@ -104,6 +110,7 @@ export async function recordPrediction(
   }
   const p = prediction!;
   const rec = em.create(LayerPredictionSchema, {
+    id: randomUUID(),
     studio,
     layer: layers[k],
     profileVersions: versions,
@@ -113,8 +120,36 @@ export async function recordPrediction(
     basedOn,
     createdBy: user.id,
   });
+  if (options.asked) {
+    await recordActivity(em, {
+      studio,
+      actor: user.id,
+      kind: "prediction.made",
+      summary: `predicted the colour of ${layerWords(k, layers[k].method)} of ${quoted(trial.title)}`,
+      trialId: trial.id,
+      layerId: layers[k].id,
+      subjectId: rec.id,
+    });
+  }
   await em.flush();
   return predictionDto(rec);
+}
+
+/** A person asks for a layer's prediction; refused once the layer is measured and predicted. */
+export async function requestPrediction(
+  em: EntityManager,
+  studio: Studio,
+  user: SessionUser,
+  trialId: string,
+  layerId: string,
+): Promise<LayerPredictionDto> {
+  if (!isUuid(trialId) || !isUuid(layerId)) throw notFound("This layer");
+  const measured = await em.count(ReadingSchema, { studio, layer: layerId, photo: { kind: "after-layer" } });
+  const predicted = await em.count(LayerPredictionSchema, { studio, layer: layerId });
+  if (measured && predicted) {
+    throw conflict("This layer is measured, so its prediction stays as it was made before the result was known.");
+  }
+  return recordPrediction(em, studio, user, trialId, layerId, { asked: true });
 }
 
 export interface LayerComparisonDto {

@@ -2,6 +2,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { LayerSchema, PhotoSchema, TrialSchema, type Photo, type Studio } from "@/entities";
+import { layerWords, quoted, recordActivity } from "@/lib/activity";
 import { badRequest, HttpError, notFound } from "@/lib/errors";
 import { enqueue } from "@/lib/jobs/boss";
 import { checkBucket, deleteObject, getObject, headObject, presignPut, putObject } from "@/lib/storage";
@@ -87,7 +88,7 @@ async function findPhoto(em: EntityManager, studio: Studio, photoId: string): Pr
  * away included, removes the record and the objects (later, by a job, when the store is down),
  * so nothing half-written stays behind; the person uploads again.
  */
-export async function confirmUpload(em: EntityManager, studio: Studio, photoId: string): Promise<PhotoDto> {
+export async function confirmUpload(em: EntityManager, studio: Studio, user: SessionUser, photoId: string): Promise<PhotoDto> {
   const photo = await findPhoto(em, studio, photoId);
   if (photo.status === "ready") return photoDto(photo, studio.id);
   const discard = async () => {
@@ -95,7 +96,7 @@ export async function confirmUpload(em: EntityManager, studio: Studio, photoId: 
     await removeObjects(objectKeys(photo));
   };
   try {
-    return await confirmStored(em, studio, photo, discard);
+    return await confirmStored(em, studio, user, photo, discard);
   } catch (e) {
     // The store went away mid-way: nothing can be checked; start over once it is back.
     if (e instanceof HttpError && e.status === 503) await discard().catch(() => undefined);
@@ -103,7 +104,24 @@ export async function confirmUpload(em: EntityManager, studio: Studio, photoId: 
   }
 }
 
-async function confirmStored(em: EntityManager, studio: Studio, photo: Photo, discard: () => Promise<void>): Promise<PhotoDto> {
+/** What the photo shows, for the feed: `a photo after layer 2`. */
+function photoWords(p: Photo): string {
+  const layer = p.layer?.getEntity();
+  switch (p.kind) {
+    case "base":
+      return "a photo of the base yarn";
+    case "after-layer":
+      return layer ? `a photo after ${layerWords(layer.position, layer.method)}` : "a photo after a layer";
+    case "final":
+      return "a photo of the finished yarn";
+    case "before-wash":
+      return "a photo before washing";
+    case "after-wash":
+      return "a photo after washing";
+  }
+}
+
+async function confirmStored(em: EntityManager, studio: Studio, user: SessionUser, photo: Photo, discard: () => Promise<void>): Promise<PhotoDto> {
   const head = await headObject(photo.uploadKey);
   if (!head) throw badRequest("The photo has not arrived yet. Upload it again.");
   if (head.size > MAX_PHOTO_BYTES) {
@@ -135,6 +153,17 @@ async function confirmStored(em: EntityManager, studio: Studio, photo: Photo, di
       bytes: head.size,
       originalType: v.originalType,
       confirmedAt: new Date(),
+    });
+    // Stored by the same flush as the photo turning ready: a failed confirm records nothing.
+    await em.populate(photo, ["trial", "layer"]);
+    await recordActivity(em, {
+      studio,
+      actor: user.id,
+      kind: "photo.added",
+      summary: `added ${photoWords(photo)} to ${quoted(photo.trial.getEntity().title)}`,
+      trialId: photo.trial.id,
+      layerId: photo.layer?.id ?? null,
+      subjectId: photo.id,
     });
     await em.flush();
   } catch (e) {

@@ -10,6 +10,7 @@ import {
   type ReferenceCard,
   type Studio,
 } from "@/entities";
+import { countWords, layerWords, quoted, recordActivity } from "@/lib/activity";
 import { badRequest, notFound } from "@/lib/errors";
 import { getObject } from "@/lib/storage";
 import type { ReadingInput } from "@/lib/schemas/photo";
@@ -111,6 +112,19 @@ export async function createReadings(
       calibration: calibrationSummary(calibration),
       createdBy: user.id,
     });
+  });
+  // One event for the whole request, however many areas were read.
+  await em.populate(photo, ["trial", "layer"]);
+  const layer = photo.kind === "after-layer" ? photo.layer?.getEntity() : undefined;
+  const from = layer ? `the photo after ${layerWords(layer.position, layer.method)} of` : "a photo of";
+  await recordActivity(em, {
+    studio,
+    actor: user.id,
+    kind: "reading.added",
+    summary: `read ${countWords(readings.length, "colour", "colours")} from ${from} ${quoted(photo.trial.getEntity().title)}`,
+    trialId: photo.trial.id,
+    layerId: photo.layer?.id ?? null,
+    subjectId: photo.id,
   });
   await em.flush();
   return readings.map((r) => readingDto(r, photo.kind));

@@ -1,9 +1,11 @@
 import "server-only";
+import { randomUUID } from "node:crypto";
 import { LockMode } from "@mikro-orm/core";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { DyeSchema, StockSolutionSchema } from "@/entities/library";
 import type { Studio } from "@/entities/studio";
 import { type Layer, type LayerDye, LayerSchema, type Trial } from "@/entities/trial";
+import { layerWords, quoted, recordActivity } from "@/lib/activity";
 import { isUuid } from "@/lib/auth/with-studio";
 import { badRequest, conflict, notFound } from "@/lib/errors";
 import { type LayerDyeInput, type LayerInput, type LayerPatch, MAX_DOS_PCT } from "@/lib/schemas/trial";
@@ -89,13 +91,14 @@ function fromInput(input: LayerInput | LayerPatch, dyes: LayerDye[] | undefined)
   return out;
 }
 
-export async function addLayer(em: EntityManager, studio: Studio, trialId: string, input: LayerInput): Promise<TrialDto> {
+export async function addLayer(em: EntityManager, studio: Studio, actorId: string, trialId: string, input: LayerInput): Promise<TrialDto> {
   await em.transactional(async (tx) => {
     const trial = await findTrial(tx, studio, trialId);
     await lockTrialRow(tx, trial);
     const dyes = await resolveDyes(tx, studio, input.dyes ?? [], trial.fibreWeightG);
     const count = await tx.count(LayerSchema, { trial });
-    tx.create(LayerSchema, {
+    const layer = tx.create(LayerSchema, {
+      id: randomUUID(),
       trial,
       position: count,
       method: input.method,
@@ -105,6 +108,14 @@ export async function addLayer(em: EntityManager, studio: Studio, trialId: strin
       rinseNote: "",
       observations: "",
       ...fromInput(input, dyes),
+    });
+    await recordActivity(tx, {
+      studio,
+      actor: actorId,
+      kind: "layer.added",
+      summary: `added ${layerWords(count, layer.method)} to ${quoted(trial.title)}`,
+      trialId: trial.id,
+      layerId: layer.id,
     });
     await tx.flush();
     await touch(tx, trial);
@@ -139,13 +150,14 @@ export async function deleteLayer(em: EntityManager, studio: Studio, trialId: st
 }
 
 /** A copy of the layer placed right after it; the later layers move down one. */
-export async function duplicateLayer(em: EntityManager, studio: Studio, trialId: string, layerId: string): Promise<TrialDto> {
+export async function duplicateLayer(em: EntityManager, studio: Studio, actorId: string, trialId: string, layerId: string): Promise<TrialDto> {
   await em.transactional(async (tx) => {
     const trial = await findTrial(tx, studio, trialId);
     await lockTrialRow(tx, trial);
     const source = await findLayer(tx, trial, layerId);
     const all = await tx.find(LayerSchema, { trial }, { orderBy: { position: "asc", createdAt: "asc" } });
     const copy = tx.create(LayerSchema, {
+      id: randomUUID(),
       trial,
       position: all.length,
       method: source.method,
@@ -161,9 +173,18 @@ export async function duplicateLayer(em: EntityManager, studio: Studio, trialId:
       gradient: source.gradient ? { ...source.gradient, depths: [...source.gradient.depths] } : null,
       observations: source.observations,
     });
-    await tx.flush();
     const ids = all.map((l) => l.id);
-    ids.splice(ids.indexOf(source.id) + 1, 0, copy.id);
+    const at = ids.indexOf(source.id) + 1;
+    ids.splice(at, 0, copy.id);
+    await recordActivity(tx, {
+      studio,
+      actor: actorId,
+      kind: "layer.added",
+      summary: `added ${layerWords(at, copy.method)} to ${quoted(trial.title)}, a copy of layer ${at}`,
+      trialId: trial.id,
+      layerId: copy.id,
+    });
+    await tx.flush();
     await writePositions(tx, ids);
     await touch(tx, trial);
   });

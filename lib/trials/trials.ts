@@ -1,9 +1,11 @@
 import "server-only";
+import { randomUUID } from "node:crypto";
 import { LockMode } from "@mikro-orm/core";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { StockSolutionSchema, YarnBaseSchema } from "@/entities/library";
 import type { Studio } from "@/entities/studio";
 import { type Layer, LayerSchema, type Trial, TrialSchema } from "@/entities/trial";
+import { quoted, recordActivity } from "@/lib/activity";
 import { isUuid } from "@/lib/auth/with-studio";
 import { badRequest, notFound } from "@/lib/errors";
 import { type CopyInput, layerDyeInput, layerInput, type TrialInput, type TrialPatch } from "@/lib/schemas/trial";
@@ -72,6 +74,8 @@ export async function getTrial(em: EntityManager, studio: Studio, trialId: strin
 export async function createTrial(em: EntityManager, studio: Studio, authorId: string, input: TrialInput): Promise<TrialDto> {
   await checkBase(em, studio, input.baseId);
   const trial = em.create(TrialSchema, {
+    // The id is needed before the flush, for the activity event stored with it.
+    id: randomUUID(),
     studio,
     author: authorId,
     title: input.title,
@@ -82,6 +86,7 @@ export async function createTrial(em: EntityManager, studio: Studio, authorId: s
     notes: input.notes ?? null,
     notesText: notesText(input.notes),
   });
+  await recordActivity(em, { studio, actor: authorId, kind: "trial.created", summary: `started ${quoted(trial.title)}`, trialId: trial.id });
   await em.flush();
   return getTrial(em, studio, trial.id);
 }
@@ -132,6 +137,7 @@ export async function copyTrial(em: EntityManager, studio: Studio, authorId: str
     const stockIds = [...new Set(layers.flatMap((l) => l.dyes.map((d) => d.stockId)).filter((s): s is string => !!s))];
     const stocks = new Map((await tx.find(StockSolutionSchema, { id: { $in: stockIds }, studio })).map((s) => [s.id, s]));
     const copy = tx.create(TrialSchema, {
+      id: randomUUID(),
       studio,
       author: authorId,
       title: input.title ?? `${source.title} (copy)`.slice(0, 160),
@@ -146,6 +152,14 @@ export async function copyTrial(em: EntityManager, studio: Studio, authorId: str
     const copied = layers.map((l, i) => copiedLayer(copy, l, i, fibreG, factor, stocks));
     copied.forEach(checkScaled);
     copied.forEach((l) => tx.create(LayerSchema, l));
+    await recordActivity(tx, {
+      studio,
+      actor: authorId,
+      kind: "trial.copied",
+      summary: `started ${quoted(copy.title)} from the recipe of ${quoted(source.title)}`,
+      trialId: copy.id,
+      subjectId: source.id,
+    });
     await tx.flush();
     return copy.id;
   });

@@ -15,7 +15,7 @@ import sharp from "sharp";
 import { renderPhoto, type Lab } from "../../colour";
 import { SYNTHETIC_BASES, syntheticDyeing, trueResult, type SyntheticDyeId } from "../../colour/spectral/synthetic-dyeings";
 import { reflectanceToLab } from "../../colour/spectral/reflectance";
-import { LayerSchema, PhotoSchema, TrialSchema, type Layer, type PhotoKind, type ReferenceCard, type Studio, type Trial, type User } from "../../entities";
+import { ActivityEventSchema, LayerSchema, PhotoSchema, TrialSchema, type Layer, type PhotoKind, type ReferenceCard, type Studio, type Trial, type User } from "../../entities";
 import { refitProfiles } from "../../lib/learning/profiles";
 import { confirmUpload } from "../../lib/photos/photos";
 import { createReadings } from "../../lib/photos/readings";
@@ -56,8 +56,8 @@ async function photographed(ctx: Ctx, trial: Trial, layer: Layer | null, kind: P
   const row = em.create(PhotoSchema, { id, studio, trial, layer, kind, uploadedBy: user, status: "pending", uploadKey: `studios/${studio.id}/uploads/${id}` });
   await em.flush();
   await putObject(row.uploadKey, jpeg, "image/jpeg");
-  await confirmUpload(em, studio, row.id);
   const sessionUser = { id: user.id, email: user.email, name: user.name };
+  await confirmUpload(em, studio, sessionUser, row.id);
   await createReadings(em, studio, sessionUser, row.id, { cardId: card.id, corners: photo.gridCorners, regions: [{ label: "", rect: READ }] });
 }
 
@@ -98,6 +98,7 @@ export async function seedCalibration(
   const undyed = reflectanceToLab(SYNTHETIC_BASES.white);
   let added = 0;
 
+  const series: string[] = [];
   for (const [dyeName, synthetic] of Object.entries(STAND_INS)) {
     const dye = library.dyes[dyeName];
     if (!dye) throw new Error(`The demo library has no dye called ${dyeName}.`);
@@ -118,10 +119,17 @@ export async function seedCalibration(
       await em.flush();
       await photographed(ctx, trial, null, "base", d.base);
       await photographed(ctx, trial, layer, "after-layer", d.result);
+      series.push(trial.id);
       added++;
     }
   }
   await refitProfiles(em, studio);
+  // The photos and readings recorded their feed events as the app does; the depth series was
+  // photographed on one afternoon a week and a half ago, so its events are dated then.
+  const events = await em.find(ActivityEventSchema, { studio, trialId: { $in: series } }, { orderBy: [{ createdAt: "asc" }, { id: "asc" }] });
+  const start = Date.now() - 10 * 86_400_000;
+  events.forEach((e, i) => (e.createdAt = new Date(start + i * 5 * 60_000)));
+  await em.flush();
 
   // The over-dye: Marigold at 1 % measured, Harbour Teal over it still to plan.
   const marigold = library.dyes.Marigold;

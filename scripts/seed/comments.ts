@@ -9,6 +9,7 @@ import type { Role, Studio } from "../../entities/studio";
 import { LayerSchema, TrialSchema } from "../../entities/trial";
 import type { User } from "../../entities/user";
 import { type CommentDocument, type InlineNode as Inline, type Paragraph, docText, mentionIds } from "../../lib/schemas/comment";
+import { seedHistory } from "./activity";
 
 const THREAD_TRIAL = "Rosehip sock, violet rubbed over";
 const HOUR = 3_600_000;
@@ -71,7 +72,7 @@ const thread: Line[] = [
   },
 ];
 
-/** Activity for every seeded trial (when the feed is empty), then the demo thread. */
+/** Activity for every seeded trial and a few other moments (when the feed is empty), then the demo thread. */
 export async function seedComments(em: EntityManager, studio: Studio, users: Record<Role, User>): Promise<number> {
   if ((await em.count(CommentSchema, { studio })) > 0) return 0;
   const byId = new Map(Object.values(users).map((u) => [u.id, u]));
@@ -87,9 +88,11 @@ export async function seedComments(em: EntityManager, studio: Studio, users: Rec
         actor: tr.author.id,
         kind: copied ? "trial.copied" : "trial.created",
         trialId: tr.id,
-        summary: copied ? `copied a recipe into “${tr.title}”` : `started “${tr.title}”`,
+        subjectId: tr.copiedFrom?.id ?? null,
+        summary: copied ? `started “${tr.title}” from the recipe of “${trials.find((x) => x.id === tr.copiedFrom?.id)?.title}”` : `started “${tr.title}”`,
       });
     }
+    await seedHistory(em, studio, users, trials);
   }
 
   const trial = trials.find((x) => x.title === THREAD_TRIAL);

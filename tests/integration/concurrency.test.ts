@@ -237,10 +237,30 @@ describe("two people save the same colourway from the same version", () => {
     expect(cw.lots.filter((l: { pass: boolean | null }) => l.pass === null)).toHaveLength(100 - expectedPass - expectedFail);
     // Recording lots does not touch the colourway's version, so an open edit form stays valid.
     expect(cw.version).toBe(version);
+    // Each lot recorded exactly one event with it.
+    expect(await countOf("select count(*) as n from activity_events where colourway_id = ? and kind = 'lot.added'", [colourwayId])).toBe(100);
     actAs(owner);
     const repeatable = await call(colourwayRoute.PATCH, "PATCH", cp(), { body: { version, status: "repeatable" } });
     expect(repeatable.status).toBe(200);
     expect(repeatable.json).toMatchObject({ status: "repeatable", passingLots: expectedPass });
+    expect(await countOf("select count(*) as n from activity_events where colourway_id = ? and kind = 'colourway.repeatable'", [colourwayId])).toBe(1);
+    version = repeatable.json.version;
+  });
+
+  it("two saves marking it repeatable at once: one is stored with its event, the refused one leaves no event", async () => {
+    actAs(owner);
+    const back = await call(colourwayRoute.PATCH, "PATCH", cp(), { body: { version, status: "candidate" } });
+    expect(back.status).toBe(200);
+    version = back.json.version;
+    const events = () => countOf("select count(*) as n from activity_events where colourway_id = ? and kind = 'colourway.repeatable'", [colourwayId]);
+    expect(await events()).toBe(1);
+    // Both pass the version check and record their event before the row lock lets them write.
+    const results = await raceOnLockedRow("colourways", colourwayId, () => [
+      runAs(owner, () => call(colourwayRoute.PATCH, "PATCH", cp(), { body: { version, status: "repeatable" } })),
+      runAs(owner, () => call(colourwayRoute.PATCH, "PATCH", cp(), { body: { version, status: "repeatable", description: "from the other tab" } })),
+    ]);
+    oneWinner(results);
+    expect(await events()).toBe(2);
   });
 });
 

@@ -8,6 +8,7 @@ import * as predictionRoute from "@/app/api/studios/[studioId]/trials/[trialId]/
 import * as comparisonRoute from "@/app/api/studios/[studioId]/trials/[trialId]/comparison/route";
 import * as layersRoute from "@/app/api/studios/[studioId]/trials/[trialId]/layers/route";
 import * as layerRoute from "@/app/api/studios/[studioId]/trials/[trialId]/layers/[layerId]/route";
+import * as activityRoute from "@/app/api/studios/[studioId]/activity/route";
 import { deltaE00, reflectanceToLab } from "@/colour";
 import { SYNTHETIC_BASES, syntheticDyeing, trueResult } from "@/colour/spectral/synthetic-dyeings";
 import { LayerPredictionSchema, LayerSchema } from "@/entities";
@@ -162,6 +163,38 @@ describe("predict, then compare", () => {
     expect(await predictionsOf(layer.id)).toBe(2);
     const cmp = await call(comparisonRoute.GET, "GET", { studioId: studio.id, trialId });
     expect(cmp.json[0].verdict.verdict).toBe("close");
+  });
+
+  it("puts a prediction someone asked for in the feed, not the ones recorded when a layer is saved or refused", async () => {
+    actAs(dyer);
+    const trialId = await makeTrial(studio.id, { title: "Asked-for teal", authorId: dyer.id, baseId });
+    await makeReading(studio.id, trialId, dyer.id, white);
+    const feed = async () => {
+      const res = await activityRoute.GET(new Request(`http://127.0.0.1/api/x?trialId=${trialId}`), { params: Promise.resolve({ studioId: studio.id }) });
+      return (await res.json()).items as { kind: string; actor: { id: string }; summary: string; layerId: string | null; subjectId: string | null }[];
+    };
+    const body = { method: "kettle", dyes: [{ dyeId: dye.turquoise, amount: { value: 1, unit: "dos" } }] };
+    const added = await call(layersRoute.POST, "POST", { studioId: studio.id, trialId }, { body });
+    const layerId = added.json.layers[0].id;
+    const em = await getEm();
+    expect(await em.count(LayerPredictionSchema, { layer: layerId })).toBe(1); // recorded by the server on its own
+    expect((await feed()).map((e) => e.kind)).toEqual(["layer.added"]);
+
+    actAs(owner);
+    const asked = await call(predictionRoute.POST, "POST", { studioId: studio.id, trialId, layerId });
+    expect(asked.status).toBe(201);
+    const [latest] = await feed();
+    expect(latest).toMatchObject({ kind: "prediction.made", actor: { id: owner.id }, summary: "predicted the colour of layer 1 (kettle) of “Asked-for teal”", layerId });
+    const stored = await em.fork().find(LayerPredictionSchema, { layer: layerId }, { orderBy: { createdAt: "desc" } });
+    expect(latest.subjectId).toBe(stored[0].id);
+
+    // Refused requests record nothing: a dye without a profile (422), a measured layer (409).
+    const violet = await call(layersRoute.POST, "POST", { studioId: studio.id, trialId }, { body: { method: "dip", dyes: [{ dyeId: unprofiled, amount: { value: 1, unit: "dos" } }] } });
+    const violetId = violet.json.layers[1].id;
+    expect((await call(predictionRoute.POST, "POST", { studioId: studio.id, trialId, layerId: violetId })).status).toBe(422);
+    await makeReading(studio.id, trialId, dyer.id, white, { layerId });
+    expect((await call(predictionRoute.POST, "POST", { studioId: studio.id, trialId, layerId })).status).toBe(409);
+    expect((await feed()).map((e) => e.kind)).toEqual(["layer.added", "prediction.made", "layer.added"]);
   });
 
   it("adds a layer without a prediction when none can be made", async () => {

@@ -4,9 +4,9 @@ import { notFound } from "@/lib/errors";
 import { confirmUpload } from "@/lib/photos/photos";
 
 export const POST = withStudio<{ studioId: string; photoId: string }>(
-  async ({ em, studio, params }) => {
+  async ({ em, studio, user, params }) => {
     if (!isUuid(params.photoId)) throw notFound("This photo");
-    return Response.json(await confirmUpload(em, studio, params.photoId));
+    return Response.json(await confirmUpload(em, studio, user, params.photoId));
   },
   { can: "photo.upload" },
 );

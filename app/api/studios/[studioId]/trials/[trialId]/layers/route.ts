@@ -7,7 +7,7 @@ import { addLayer } from "@/lib/trials/layers";
 export const POST = withStudio<{ studioId: string; trialId: string }>(
   async ({ req, em, studio, user, params }) => {
     const input = layerInput.parse(await readJson(req));
-    const trial = await addLayer(em, studio, params.trialId, input);
+    const trial = await addLayer(em, studio, user.id, params.trialId, input);
     // What the model expects of the new layer is kept, to compare with the reading later.
     const added = trial.layers.at(-1);
     if (added) await ensurePrediction(em, studio, user, params.trialId, added.id);

@@ -3,6 +3,6 @@ import { withStudio } from "@/lib/auth/with-studio";
 import { duplicateLayer } from "@/lib/trials/layers";
 
 export const POST = withStudio<{ studioId: string; trialId: string; layerId: string }>(
-  async ({ em, studio, params }) => Response.json(await duplicateLayer(em, studio, params.trialId, params.layerId), { status: 201 }),
+  async ({ em, studio, user, params }) => Response.json(await duplicateLayer(em, studio, user.id, params.trialId, params.layerId), { status: 201 }),
   { can: "trial.edit" },
 );
