@@ -5,18 +5,9 @@ import { api } from "@/components/api";
 
 // The studio's activity feed and the caller's notifications, through the API.
 
-export interface ActivityDto {
-  id: string;
-  kind: string;
-  actor: { id: string; name: string } | null;
-  summary: string;
-  trialId: string | null;
-  layerId: string | null;
-  commentId: string | null;
-  colourwayId: string | null;
-  subjectId: string | null;
-  createdAt: string;
-}
+// The feed entry as the API sends it (a type only: nothing of the server module reaches the browser).
+import type { ActivityDto } from "@/lib/activity";
+export type { ActivityDto };
 
 export interface NotificationDto {
   id: string;

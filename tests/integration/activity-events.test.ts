@@ -19,6 +19,7 @@ import * as colourwaysRoute from "@/app/api/studios/[studioId]/colourways/route"
 import * as colourwayRoute from "@/app/api/studios/[studioId]/colourways/[colourwayId]/route";
 import * as lotsRoute from "@/app/api/studios/[studioId]/colourways/[colourwayId]/lots/route";
 import * as invitationRoute from "@/app/api/invitations/[token]/route";
+import type { ActivityDto } from "@/lib/activity";
 import { getOrm } from "@/lib/db";
 import { stopBoss } from "@/lib/jobs/boss";
 import { actAs } from "../support/session";
@@ -36,17 +37,7 @@ const TAG = "activity-events";
 let owner: Person, dyer: Person, guest: Person, outsider: Person;
 let studio: StudioFixture, elsewhere: StudioFixture;
 
-interface Event {
-  id: string;
-  kind: string;
-  actor: { id: string; name: string } | null;
-  summary: string;
-  trialId: string | null;
-  layerId: string | null;
-  commentId: string | null;
-  colourwayId: string | null;
-  subjectId: string | null;
-}
+type Event = ActivityDto;
 
 /** The studio's feed as `who` sees it, newest first. */
 async function feed(who: Person, query = "", studioId = studio.id): Promise<Event[]> {
