@@ -78,7 +78,7 @@ interface DyeSeed {
 
 export const demoDyes: DyeSeed[] = [
   { name: "Harbour Teal", dyeClass: "acid", form: "powder", sdsUrl: "https://example.com/sds/harbour-teal.pdf", displayHex: "#1f6f78", notes: "Strikes early; add last in a mix." },
-  { name: "Rosehip", dyeClass: "acid", form: "powder", sdsUrl: "https://example.com/sds/rosehip.pdf", displayHex: "#b8343f", notes: "" },
+  { name: "Rosehip", dyeClass: "acid", form: "powder", sdsUrl: "https://example.com/sds/rosehip.pdf", displayHex: "#a83a98", notes: "A cool pink; leans violet at depth." },
   { name: "Marigold", dyeClass: "acid", form: "powder", sdsUrl: "https://example.com/sds/marigold.pdf", displayHex: "#e3a21a", notes: "Slow to exhaust at pale depths: hold the heat." },
   { name: "Slate Black", dyeClass: "acid", form: "powder", sdsUrl: "https://example.com/sds/slate-black.pdf", displayHex: "#2b2f33", notes: "Needs 4 % or more for a true black." },
   { name: "Heather Violet", dyeClass: "acid", form: "powder", displayHex: "#6b4a8c", notes: "" },
