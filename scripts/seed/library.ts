@@ -76,8 +76,10 @@ interface DyeSeed {
   notes: string;
 }
 
+// The four dyes the calibration series uses (scripts/seed/calibration.ts STAND_INS) show the colour
+// their invented spectrum gives at 1 % DOS on the white base, so a chip matches what predictions show.
 export const demoDyes: DyeSeed[] = [
-  { name: "Harbour Teal", dyeClass: "acid", form: "powder", sdsUrl: "https://example.com/sds/harbour-teal.pdf", displayHex: "#1f6f78", notes: "Strikes early; add last in a mix." },
+  { name: "Harbour Teal", dyeClass: "acid", form: "powder", sdsUrl: "https://example.com/sds/harbour-teal.pdf", displayHex: "#008bcb", notes: "Strikes early; add last in a mix." },
   { name: "Rosehip", dyeClass: "acid", form: "powder", sdsUrl: "https://example.com/sds/rosehip.pdf", displayHex: "#a83a98", notes: "A cool pink; leans violet at depth." },
   { name: "Marigold", dyeClass: "acid", form: "powder", sdsUrl: "https://example.com/sds/marigold.pdf", displayHex: "#e3a21a", notes: "Slow to exhaust at pale depths: hold the heat." },
   { name: "Slate Black", dyeClass: "acid", form: "powder", sdsUrl: "https://example.com/sds/slate-black.pdf", displayHex: "#2b2f33", notes: "Needs 4 % or more for a true black." },
