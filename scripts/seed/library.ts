@@ -76,8 +76,10 @@ interface DyeSeed {
   notes: string;
 }
 
-// The four dyes the calibration series uses (scripts/seed/calibration.ts STAND_INS) show the colour
-// their invented spectrum gives at 1 % DOS on the white base, so a chip matches what predictions show.
+// Chips of the dyes the calibration series uses (scripts/seed/calibration.ts STAND_INS) agree with
+// their invented spectra: Rosehip and Harbour Teal show what they give at 1 % DOS on the white base
+// (#a83a98, #008bcb), so a chip matches what predictions show; Marigold's was already close, and
+// Slate Black keeps a black chip, as it dyes at its working depth of 4 % or more.
 export const demoDyes: DyeSeed[] = [
   { name: "Harbour Teal", dyeClass: "acid", form: "powder", sdsUrl: "https://example.com/sds/harbour-teal.pdf", displayHex: "#008bcb", notes: "Strikes early; add last in a mix." },
   { name: "Rosehip", dyeClass: "acid", form: "powder", sdsUrl: "https://example.com/sds/rosehip.pdf", displayHex: "#a83a98", notes: "A cool pink; leans violet at depth." },
