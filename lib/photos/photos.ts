@@ -1,5 +1,6 @@
 import "server-only";
 import { randomUUID } from "node:crypto";
+import { LockMode } from "@mikro-orm/core";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { LayerSchema, PhotoSchema, TrialSchema, type Photo, type Studio } from "@/entities";
 import { layerWords, quoted, recordActivity } from "@/lib/activity";
@@ -87,21 +88,41 @@ async function findPhoto(em: EntityManager, studio: Studio, photoId: string): Pr
  * Checks what arrived in the bucket and writes the variants. Anything wrong, the store going
  * away included, removes the record and the objects (later, by a job, when the store is down),
  * so nothing half-written stays behind; the person uploads again.
+ *
+ * The photo's row is locked while this runs: a phone on poor Wi-Fi may send the confirm again
+ * before the first answer arrives, and the second waits for the first, then finds the photo
+ * ready and answers the same, instead of writing the variants and the feed's event twice.
  */
 export async function confirmUpload(em: EntityManager, studio: Studio, user: SessionUser, photoId: string): Promise<PhotoDto> {
-  const photo = await findPhoto(em, studio, photoId);
-  if (photo.status === "ready") return photoDto(photo, studio.id);
-  const discard = async () => {
-    await em.removeAndFlush(photo);
-    await removeObjects(objectKeys(photo));
-  };
+  let discard = false;
+  let uploadKey: string | null = null;
   try {
-    return await confirmStored(em, studio, user, photo, discard);
+    const dto = await em.transactional(async (tx) => {
+      const photo = await tx.findOne(PhotoSchema, { id: photoId, studio }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+      if (!photo) throw notFound("This photo");
+      if (photo.status === "ready") return photoDto(photo, studio.id);
+      uploadKey = photo.uploadKey;
+      return await confirmStored(tx, studio, user, photo, () => {
+        discard = true;
+      });
+    });
+    // Only once the photo is stored as ready: the upload may carry EXIF GPS; the cleaned variants are kept.
+    if (uploadKey) await deleteObject(uploadKey).catch(() => undefined);
+    return dto;
   } catch (e) {
     // The store went away mid-way: nothing can be checked; start over once it is back.
-    if (e instanceof HttpError && e.status === 503) await discard().catch(() => undefined);
+    if (discard || (e instanceof HttpError && e.status === 503)) await discardUpload(em, studio, photoId).catch(() => undefined);
     throw e;
   }
+}
+
+/** Removes an upload that failed its checks: the record (unless another confirm made it ready meanwhile) and its objects. */
+async function discardUpload(em: EntityManager, studio: Studio, photoId: string): Promise<void> {
+  const fresh = em.fork();
+  const photo = await fresh.findOne(PhotoSchema, { id: photoId, studio });
+  if (!photo || photo.status === "ready") return;
+  await fresh.removeAndFlush(photo);
+  await removeObjects(objectKeys(photo));
 }
 
 /** What the photo shows, for the feed: `a photo after layer 2`. */
@@ -121,11 +142,12 @@ function photoWords(p: Photo): string {
   }
 }
 
-async function confirmStored(em: EntityManager, studio: Studio, user: SessionUser, photo: Photo, discard: () => Promise<void>): Promise<PhotoDto> {
+/** The checks and the variants, inside confirmUpload's transaction; `discard` asks for the upload to be removed once it has rolled back. */
+async function confirmStored(em: EntityManager, studio: Studio, user: SessionUser, photo: Photo, discard: () => void): Promise<PhotoDto> {
   const head = await headObject(photo.uploadKey);
   if (!head) throw badRequest("The photo has not arrived yet. Upload it again.");
   if (head.size > MAX_PHOTO_BYTES) {
-    await discard();
+    discard();
     throw new HttpError(413, "Photos can be at most 25 MB. Take it again at a lower resolution or share a smaller copy.");
   }
   const bytes = await getObject(photo.uploadKey);
@@ -134,7 +156,7 @@ async function confirmStored(em: EntityManager, studio: Studio, user: SessionUse
   try {
     v = await makeVariants(bytes);
   } catch (e) {
-    await discard();
+    discard();
     throw e;
   }
   const prefix = `studios/${studio.id}/photos/${photo.id}`;
@@ -170,8 +192,6 @@ async function confirmStored(em: EntityManager, studio: Studio, user: SessionUse
     if (!(e instanceof HttpError && e.status === 503)) await Promise.all(Object.values(keys).map((k) => deleteObject(k).catch(() => undefined)));
     throw e;
   }
-  // The upload may carry EXIF GPS; only the cleaned variants are kept.
-  await deleteObject(photo.uploadKey).catch(() => undefined);
   return photoDto(photo, studio.id);
 }
 

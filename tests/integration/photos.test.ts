@@ -145,6 +145,26 @@ describe("upload and confirm", () => {
     expect((await objectsUnder(`studios/${studio.id}/`)).filter((k) => k.includes(id))).toEqual([]);
   });
 
+  it("a confirm sent twice at once (a phone retrying on bad Wi-Fi) makes one photo, once", async () => {
+    actAs(dyer);
+    const jpeg = await sharp({ create: { width: 1600, height: 1200, channels: 3, background: "#3c7a5a" } }).jpeg().toBuffer();
+    const start = await call(uploadsRoute.POST, "POST", { studioId: studio.id }, { body: { trialId, kind: "final", contentType: "image/jpeg", bytes: jpeg.length } });
+    expect(start.status).toBe(201);
+    await fetch(start.json.uploadUrl, { method: "PUT", headers: { "content-type": "image/jpeg" }, body: new Uint8Array(jpeg) });
+    const id = start.json.photo.id as string;
+    const [a, b, c] = await Promise.all([0, 1, 2].map(() => call(confirmRoute.POST, "POST", { studioId: studio.id, photoId: id })));
+    for (const r of [a, b, c]) {
+      expect(r.status, JSON.stringify(r.json)).toBe(200);
+      expect(r.json).toMatchObject({ id, status: "ready", width: 1600, height: 1200 });
+    }
+    const em = await getEm();
+    const events = await em.getConnection().execute("select 1 from activity_events where kind = 'photo.added' and subject_id = ?", [id]);
+    expect(events).toHaveLength(1);
+    expect((await objectsUnder(`studios/${studio.id}/`)).filter((k) => k.includes(id)).sort()).toEqual(
+      [`studios/${studio.id}/photos/${id}/master.jpg`, `studios/${studio.id}/photos/${id}/thumb.webp`, `studios/${studio.id}/photos/${id}/web.webp`],
+    );
+  });
+
   it("refuses a 30 MB file before any upload URL is given", async () => {
     actAs(dyer);
     const res = await call(uploadsRoute.POST, "POST", { studioId: studio.id }, { body: { trialId, kind: "base", contentType: "image/jpeg", bytes: 30 * 1024 * 1024 } });
